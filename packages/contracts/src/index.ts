@@ -1,0 +1,5 @@
+export * from "./errors.js";
+export * from "./roles.js";
+export * from "./pagination.js";
+export * from "./auth.js";
+export * from "./shops.js";
