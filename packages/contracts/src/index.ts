@@ -3,3 +3,5 @@ export * from "./roles.js";
 export * from "./pagination.js";
 export * from "./auth.js";
 export * from "./shops.js";
+export * from "./library.js";
+export * from "./recipes.js";
