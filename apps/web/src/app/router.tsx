@@ -1,0 +1,43 @@
+import { useMemo, type ComponentType } from "react";
+import { createBrowserRouter, Navigate, RouterProvider, type RouteObject } from "react-router-dom";
+import { LoadingState } from "@/components/ui/spinner";
+import { RootRoute } from "./routes/root";
+import { RouteError } from "./routes/route-error";
+
+/** Loads a route module on first visit; each module exports its page as a named component. */
+function page<M>(load: () => Promise<M>, pick: (module: M) => ComponentType) {
+  return async () => ({ Component: pick(await load()) });
+}
+
+export const routes: RouteObject[] = [
+  {
+    path: "/",
+    Component: RootRoute,
+    errorElement: <RouteError />,
+    hydrateFallbackElement: <LoadingState label="Loading Ringdown…" className="min-h-dvh" />,
+    children: [
+      { path: "sign-in", lazy: page(() => import("./routes/auth/sign-in"), (m) => m.SignInRoute) },
+      { path: "sign-up", lazy: page(() => import("./routes/auth/sign-up"), (m) => m.SignUpRoute) },
+      {
+        lazy: page(() => import("./routes/app/layout"), (m) => m.AppLayoutRoute),
+        errorElement: <RouteError />,
+        children: [
+          { index: true, element: <Navigate to="/planner" replace /> },
+          { path: "planner", lazy: page(() => import("./routes/app/planner"), (m) => m.PlannerRoute) },
+          { path: "recipes", lazy: page(() => import("./routes/app/recipes"), (m) => m.RecipesRoute) },
+          { path: "cutters", lazy: page(() => import("./routes/app/cutters"), (m) => m.CuttersRoute) },
+          { path: "materials", lazy: page(() => import("./routes/app/materials"), (m) => m.MaterialsRoute) },
+          { path: "machines", lazy: page(() => import("./routes/app/machines"), (m) => m.MachinesRoute) },
+          { path: "team", lazy: page(() => import("./routes/app/team"), (m) => m.TeamRoute) },
+          { path: "billing", lazy: page(() => import("./routes/app/billing"), (m) => m.BillingRoute) },
+          { path: "*", lazy: page(() => import("./routes/not-found"), (m) => m.NotFoundRoute) },
+        ],
+      },
+    ],
+  },
+];
+
+export function AppRouter() {
+  const router = useMemo(() => createBrowserRouter(routes), []);
+  return <RouterProvider router={router} />;
+}

@@ -1,0 +1,5 @@
+import { AreaPlaceholder } from "@/features/shell/components/area-placeholder";
+
+export function CuttersRoute() {
+  return <AreaPlaceholder area="cutters" />;
+}

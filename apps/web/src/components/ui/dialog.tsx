@@ -1,0 +1,72 @@
+import { X } from "lucide-react";
+import { useEffect, useId, useRef, type ReactNode } from "react";
+
+/**
+ * A modal dialog on the native <dialog> element (focus trap, Escape and the
+ * top layer come from the browser). Its content mounts only while open, so a
+ * form inside starts fresh each time.
+ */
+export function Dialog({
+  open,
+  onClose,
+  title,
+  description,
+  children,
+}: {
+  open: boolean;
+  onClose: () => void;
+  title: string;
+  description?: ReactNode;
+  children: ReactNode;
+}) {
+  const ref = useRef<HTMLDialogElement>(null);
+  const titleId = useId();
+  const descriptionId = useId();
+
+  useEffect(() => {
+    const dialog = ref.current;
+    if (!dialog) return;
+    if (open && !dialog.open) dialog.showModal();
+    if (!open && dialog.open) dialog.close();
+  }, [open]);
+
+  return (
+    <dialog
+      ref={ref}
+      aria-labelledby={titleId}
+      aria-describedby={description ? descriptionId : undefined}
+      onClose={onClose}
+      onClick={(event) => {
+        // A click on the backdrop lands on the <dialog> itself.
+        if (event.target === event.currentTarget) onClose();
+      }}
+      className="m-auto w-[calc(100%-2rem)] max-w-md rounded-lg border border-rule bg-surface p-0 text-ink shadow-xl backdrop:bg-ink/40"
+    >
+      {open && (
+        <div className="px-5 py-5">
+          <div className="mb-4 flex items-start justify-between gap-4">
+            <div>
+              <h2 id={titleId} className="text-base font-semibold">
+                {title}
+              </h2>
+              {description && (
+                <p id={descriptionId} className="mt-1 text-sm text-muted">
+                  {description}
+                </p>
+              )}
+            </div>
+            <button
+              type="button"
+              onClick={onClose}
+              className="-mr-1 -mt-1 flex size-8 cursor-pointer items-center justify-center rounded-md text-muted hover:bg-ink/5 hover:text-ink"
+            >
+              <X className="size-4" aria-hidden />
+              <span className="sr-only">Close</span>
+            </button>
+          </div>
+          {children}
+        </div>
+      )}
+    </dialog>
+  );
+}
