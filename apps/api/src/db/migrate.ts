@@ -1,0 +1,48 @@
+import pg from "pg";
+import type { Sequelize } from "sequelize";
+import { SequelizeStorage, Umzug, type MigrationFn } from "umzug";
+import * as m0001 from "./migrations/0001-users-shops-memberships.js";
+import * as m0002 from "./migrations/0002-sessions-and-rate-limits.js";
+
+type Migration = { up: MigrationFn<Sequelize>; down: MigrationFn<Sequelize> };
+
+// Explicit list (no file globbing): new migrations are appended here, in order, never renamed.
+const migrations: Array<{ name: string } & Migration> = [
+  { name: "0001-users-shops-memberships", ...m0001 },
+  { name: "0002-sessions-and-rate-limits", ...m0002 },
+];
+
+// Any constant shared by every API instance; serialises concurrent start-ups on one database.
+const MIGRATION_LOCK_KEY = 72_104_001;
+
+function umzugFor(sequelize: Sequelize) {
+  return new Umzug<Sequelize>({
+    migrations,
+    context: sequelize,
+    storage: new SequelizeStorage({ sequelize, tableName: "schema_migrations" }),
+    logger: undefined,
+  });
+}
+
+/**
+ * Applies pending migrations. Several API instances may start at once, so the run holds a
+ * PostgreSQL advisory lock on a separate connection; the others wait and then find nothing to do.
+ * Returns the names of the migrations applied.
+ */
+export async function migrate(sequelize: Sequelize, databaseUrl: string): Promise<string[]> {
+  const lock = new pg.Client({ connectionString: databaseUrl, connectionTimeoutMillis: 5_000 });
+  await lock.connect();
+  try {
+    await lock.query("SELECT pg_advisory_lock($1)", [MIGRATION_LOCK_KEY]);
+    const applied = await umzugFor(sequelize).up();
+    return applied.map((m) => m.name);
+  } finally {
+    await lock.query("SELECT pg_advisory_unlock($1)", [MIGRATION_LOCK_KEY]).catch(() => undefined);
+    await lock.end();
+  }
+}
+
+/** Names of migrations not applied yet (for tests and diagnostics). */
+export async function pendingMigrations(sequelize: Sequelize): Promise<string[]> {
+  return (await umzugFor(sequelize).pending()).map((m) => m.name);
+}

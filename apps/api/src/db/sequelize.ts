@@ -1,0 +1,47 @@
+import pg from "pg";
+import { Sequelize, type Transaction } from "sequelize";
+import { initUserModel } from "../modules/users/user.model.js";
+import { initShopModel } from "../modules/shops/shop.model.js";
+import { initMembershipModel } from "../modules/shops/membership.model.js";
+import { initRevokedSessionModel } from "../modules/auth/revoked-session.model.js";
+
+// BIGINT counts (COUNT(*)) come back as strings by default; our counts fit in a JS number.
+pg.types.setTypeParser(pg.types.builtins.INT8, (value: string) => Number.parseInt(value, 10));
+
+let instance: Sequelize | undefined;
+
+/** Creates the process's Sequelize instance and registers every model on it. */
+export function connectDatabase(databaseUrl: string): Sequelize {
+  if (instance) throw new Error("connectDatabase() was called twice in one process");
+  instance = new Sequelize(databaseUrl, {
+    dialect: "postgres",
+    dialectModule: pg,
+    logging: false,
+    pool: { max: 10, min: 0, acquire: 10_000, idle: 10_000 },
+    define: { underscored: true },
+  });
+  initUserModel(instance);
+  initShopModel(instance);
+  initMembershipModel(instance);
+  initRevokedSessionModel(instance);
+  return instance;
+}
+
+export function getSequelize(): Sequelize {
+  if (!instance) throw new Error("The database is not connected yet (call connectDatabase first)");
+  return instance;
+}
+
+export async function closeDatabase(): Promise<void> {
+  const current = instance;
+  instance = undefined;
+  await current?.close();
+}
+
+/** Opaque transaction handle passed from services to repositories. */
+export type Tx = Transaction;
+
+/** Runs `work` in one transaction: committed when it resolves, rolled back when it throws. */
+export function inTransaction<T>(work: (tx: Tx) => Promise<T>): Promise<T> {
+  return getSequelize().transaction((tx) => work(tx));
+}

@@ -1,0 +1,70 @@
+import type { ErrorRequestHandler, RequestHandler } from "express";
+import { BaseError, ConnectionError, UniqueConstraintError } from "sequelize";
+import { ZodError } from "zod";
+import type { ApiError } from "@ringdown/contracts";
+import { AppError, statusByCode } from "./app-error.js";
+import { fieldErrors } from "./validate.js";
+
+/** Errors raised by express.json() (body-parser) carry a `type`. */
+type BodyParserError = Error & { type?: string; status?: number };
+
+function toAppError(err: unknown): AppError | undefined {
+  if (err instanceof AppError) return err;
+  if (err instanceof ZodError) return AppError.validation("Some fields need attention.", fieldErrors(err));
+  if (err instanceof UniqueConstraintError) {
+    const fields = Object.fromEntries(Object.keys(err.fields ?? {}).map((f) => [f, "This value is already in use."]));
+    return AppError.conflict("That already exists.", Object.keys(fields).length > 0 ? fields : undefined);
+  }
+  if (err instanceof ConnectionError) {
+    return new AppError("service_unavailable", "The database is unavailable. Try again in a moment.", { cause: err });
+  }
+  if (err instanceof BaseError) return undefined;
+  const type = (err as BodyParserError | undefined)?.type;
+  switch (type) {
+    case "entity.parse.failed":
+      return AppError.validation("The request body is not valid JSON.");
+    case "entity.too.large":
+      return new AppError("payload_too_large", "The request body is too large.");
+    case "encoding.unsupported":
+    case "charset.unsupported":
+      return new AppError("unsupported_media_type", "Send the request body as UTF-8 JSON.");
+    default:
+      return undefined;
+  }
+}
+
+/** The one error middleware: maps every error onto `{ error: { code, message, fields? } }`. */
+export const errorMiddleware: ErrorRequestHandler = (err, req, res, next) => {
+  if (res.headersSent) {
+    next(err);
+    return;
+  }
+  const appError = toAppError(err);
+  let body: ApiError;
+  let status: number;
+  if (appError) {
+    status = statusByCode[appError.code];
+    body = { error: { code: appError.code, message: appError.message } };
+    if (appError.fields) body.error.fields = appError.fields;
+    if (appError.retryAfterSeconds !== undefined) res.setHeader("Retry-After", String(appError.retryAfterSeconds));
+    if (appError.code === "service_unavailable") logError(res.locals.requestId, req.method, req.originalUrl, err);
+  } else {
+    status = 500;
+    const requestId = String(res.locals.requestId ?? "unknown");
+    logError(requestId, req.method, req.originalUrl, err);
+    body = {
+      error: { code: "internal_error", message: `Something went wrong on our side. Reference: ${requestId}.` },
+    };
+  }
+  res.status(status).json(body);
+};
+
+function logError(requestId: unknown, method: string, url: string, err: unknown): void {
+  const detail = err instanceof Error ? (err.stack ?? err.message) : String(err);
+  console.error(`[request ${String(requestId)}] ${method} ${url} failed: ${detail}`);
+}
+
+/** Unknown /api/* routes answer with the error envelope, not the web app. */
+export const apiNotFound: RequestHandler = (req) => {
+  throw AppError.notFound(`No API route ${req.method} ${req.originalUrl.split("?")[0]}.`);
+};

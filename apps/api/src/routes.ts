@@ -1,0 +1,41 @@
+/**
+ * Routes under /api/shops/:shopId. Every module registers its shop-scoped routes directly on this
+ * one router (no nested routers), which sits behind `requireShopRole` for any member. Tests walk
+ * this router's stack (see `listRoutes`) to prove that every shop-scoped route answers 404 to
+ * non-members, so a new route cannot escape that check.
+ */
+import { Router } from "express";
+import { registerMemberRoutes } from "./modules/members/members.router.js";
+import { registerShopRoutes } from "./modules/shops/shops.router.js";
+
+export function createShopScopedRouter(): Router {
+  const router = Router({ mergeParams: true });
+  registerShopRoutes(router);
+  registerMemberRoutes(router);
+  return router;
+}
+
+export interface RouteEntry {
+  method: string;
+  /** Path relative to the router, e.g. "/" or "/members/:memberId". */
+  path: string;
+}
+
+interface StackLayer {
+  route?: { path: string; methods: Record<string, boolean> };
+}
+
+/**
+ * Every route registered on `router`, read from its stack. Throws if the router holds anything
+ * other than routes (a nested router would hide its routes from this list).
+ */
+export function listRoutes(router: Router): RouteEntry[] {
+  const entries: RouteEntry[] = [];
+  for (const layer of router.stack as StackLayer[]) {
+    if (!layer.route) throw new Error("the shop-scoped router must hold routes only (no router.use)");
+    for (const [method, on] of Object.entries(layer.route.methods)) {
+      if (on && method !== "_all") entries.push({ method: method.toUpperCase(), path: layer.route.path });
+    }
+  }
+  return entries;
+}

@@ -1,0 +1,12 @@
+import { seedPeopleAndShops } from "./people-and-shops.js";
+
+/** Seed modules, one per area, run in order. Later areas append theirs here. */
+const steps: Array<{ area: string; run: () => Promise<number> }> = [{ area: "people and shops", run: seedPeopleAndShops }];
+
+/** Loads the invented demo scenario; safe to run on every start. */
+export async function seedDemo(log: (line: string) => void = () => undefined): Promise<void> {
+  for (const step of steps) {
+    const created = await step.run();
+    log(created > 0 ? `demo seed: ${step.area} — ${created} records created` : `demo seed: ${step.area} — already present`);
+  }
+}
