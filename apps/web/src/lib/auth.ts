@@ -1,5 +1,5 @@
 import { meSchema, type Me, type Membership, type UnitSystem } from "@ringdown/contracts";
-import { queryOptions, useMutation, useQuery, useQueryClient } from "@tanstack/react-query";
+import { queryOptions, useMutation, useQuery } from "@tanstack/react-query";
 import { apiRequest, isApiError } from "./api-client";
 import { meQueryKey } from "./query-client";
 
@@ -42,14 +42,15 @@ export function logout(): Promise<undefined> {
   return apiRequest("/auth/logout", { method: "POST" });
 }
 
-/** Ends the session and forgets every cached answer of the previous person. */
+/**
+ * Ends the session, then loads the sign-in page afresh: a full page load drops
+ * everything the previous person had in memory, not just the query cache.
+ */
 export function useLogout() {
-  const queryClient = useQueryClient();
   return useMutation({
     mutationFn: logout,
     onSuccess: () => {
-      queryClient.removeQueries({ predicate: (q) => q.queryKey[0] !== meQueryKey[0] });
-      queryClient.setQueryData(meQueryKey, null);
+      window.location.replace("/sign-in");
     },
   });
 }

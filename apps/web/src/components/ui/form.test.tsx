@@ -92,6 +92,21 @@ describe("Form", () => {
     expect(screen.getByLabelText("Your name")).not.toHaveAttribute("aria-invalid");
   });
 
+  it("does not repeat in the alert what a field already says", async () => {
+    const user = userEvent.setup();
+    const taken = "An account with this e-mail address already exists. Sign in instead.";
+    const onSubmit = vi.fn(async () => {
+      throw new ApiError(409, "conflict", taken, { email: taken });
+    });
+    render(<SignupLikeForm onSubmit={onSubmit} />);
+    await fillValid(user);
+    await user.click(screen.getByRole("button", { name: "Send" }));
+
+    expect(await screen.findByText(taken)).toBeInTheDocument();
+    expect(screen.getByLabelText("E-mail")).toHaveAccessibleDescription(taken);
+    expect(screen.queryByRole("alert")).not.toBeInTheDocument();
+  });
+
   it("shows server errors for fields the form does not have in the alert", async () => {
     const user = userEvent.setup();
     const onSubmit = vi.fn(async () => {

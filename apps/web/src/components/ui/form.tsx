@@ -43,8 +43,12 @@ export function applySubmitError<T extends FieldValues>(form: UseFormReturn<T, u
       unmatched.push(message);
     }
   }
-  const summary = [error.message, ...unmatched].filter((m, i, all) => m && all.indexOf(m) === i).join(" ");
-  form.setError(SERVER_ERROR_KEY, { type: error.code, message: summary });
+  // The overall message is left out when a field already says exactly that.
+  const shownOnFields = new Set(Object.values(error.fields).filter((m) => !unmatched.includes(m)));
+  const summary = [error.message, ...unmatched]
+    .filter((m, i, all) => m && all.indexOf(m) === i && !shownOnFields.has(m))
+    .join(" ");
+  if (summary) form.setError(SERVER_ERROR_KEY, { type: error.code, message: summary });
 }
 
 export interface FormProps<S extends AnyFormSchema>
@@ -63,7 +67,9 @@ export function Form<S extends AnyFormSchema>({ schema, onSubmit, defaultValues,
   const form = useForm<z.input<S>, unknown, z.output<S>>({
     resolver: zodResolver(schema),
     defaultValues,
-    mode: "onTouched",
+    // Check on submit, then live while correcting: no errors for fields merely passed through.
+    mode: "onSubmit",
+    reValidateMode: "onChange",
   });
   const submit = form.handleSubmit(async (values) => {
     try {

@@ -1,4 +1,4 @@
-import { meSchema, type UnitSystem, type UpdateMeBody } from "@ringdown/contracts";
+import { meSchema, type Me, type UnitSystem, type UpdateMeBody } from "@ringdown/contracts";
 import { useMutation, useQueryClient } from "@tanstack/react-query";
 import { apiRequest } from "@/lib/api-client";
 import { meQueryKey } from "@/lib/query-client";
@@ -19,11 +19,20 @@ export function useSwitchShop() {
   });
 }
 
-/** Stores the person's metric/imperial display preference. */
+/** Stores the person's metric/imperial display preference (shown at once, undone if refused). */
 export function useSetUnitSystem() {
   const queryClient = useQueryClient();
   return useMutation({
     mutationFn: (unitSystem: UnitSystem) => updateMe({ unitSystem }),
+    onMutate: async (unitSystem) => {
+      await queryClient.cancelQueries({ queryKey: meQueryKey });
+      const previous = queryClient.getQueryData<Me | null>(meQueryKey);
+      if (previous) queryClient.setQueryData<Me>(meQueryKey, { ...previous, user: { ...previous.user, unitSystem } });
+      return { previous };
+    },
+    onError: (_error, _unitSystem, context) => {
+      if (context?.previous) queryClient.setQueryData(meQueryKey, context.previous);
+    },
     onSuccess: (me) => {
       queryClient.setQueryData(meQueryKey, me);
     },

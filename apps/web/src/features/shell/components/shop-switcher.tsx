@@ -1,6 +1,6 @@
 import { roleLabels, type Me } from "@ringdown/contracts";
 import { Check, ChevronsUpDown, Plus } from "lucide-react";
-import { useState } from "react";
+import { useId, useState } from "react";
 import { Popover } from "@/components/ui/popover";
 import { Spinner } from "@/components/ui/spinner";
 import { activeMembership } from "@/lib/auth";
@@ -10,6 +10,7 @@ import { NewShopDialog } from "./new-shop-dialog";
 
 /** The active shop at the top of the rail; opens the list of the person's shops and "New shop…". */
 export function ShopSwitcher({ me }: { me: Me }) {
+  const listLabelId = useId();
   const [creating, setCreating] = useState(false);
   const switchShop = useSwitchShop();
   const active = activeMembership(me);
@@ -39,8 +40,10 @@ export function ShopSwitcher({ me }: { me: Me }) {
       >
         {(close) => (
           <div>
-            <p className="px-2 pt-1 pb-1.5 text-xs font-medium text-muted">Your shops</p>
-            <ul className="max-h-72 overflow-y-auto">
+            <p id={listLabelId} className="px-2 pt-1 pb-1.5 text-xs font-medium text-muted">
+              Your shops
+            </p>
+            <ul aria-labelledby={listLabelId} className="max-h-72 overflow-y-auto">
               {shops.map((m) => {
                 const isActive = m.shopId === me.activeShopId;
                 return (

@@ -29,8 +29,7 @@ export function UserMenu({ me }: { me: Me }) {
         <button
           {...props}
           type="button"
-          aria-label={`Account: ${me.user.name}`}
-          className="flex w-full cursor-pointer items-center gap-2.5 rounded-md px-2 py-2 text-left hover:bg-ink/5"
+          className="flex w-full cursor-pointer items-center gap-2.5 rounded-md px-2 py-2 text-left hover:bg-surface"
         >
           <span
             aria-hidden
@@ -39,6 +38,7 @@ export function UserMenu({ me }: { me: Me }) {
             {initials(me.user.name)}
           </span>
           <span className="min-w-0 flex-1">
+            <span className="sr-only">Account: </span>
             <span className="block truncate text-sm font-medium text-ink">{me.user.name}</span>
             <span className="block truncate text-xs text-muted">{me.user.email}</span>
           </span>

@@ -1,0 +1,53 @@
+# Shared helpers for scripts/*.sh (sourced, not run).
+
+# Repository root, whatever the caller's working directory.
+RINGDOWN_ROOT="$(cd "$(dirname "${BASH_SOURCE[0]}")/../.." && pwd)"
+
+log() { printf '\033[1m▸ %s\033[0m\n' "$*"; }
+warn() { printf 'warning: %s\n' "$*" >&2; }
+die() { printf 'error: %s\n' "$*" >&2; exit 1; }
+
+# Exports KEY=VALUE lines of the project's .env without executing the file and without
+# overriding variables already set in the environment (the environment wins, as in dotenv).
+load_dotenv() {
+  local file="$RINGDOWN_ROOT/.env" line key value
+  [[ -f "$file" ]] || return 0
+  while IFS= read -r line || [[ -n "$line" ]]; do
+    [[ "$line" =~ ^[[:space:]]*(export[[:space:]]+)?([A-Za-z_][A-Za-z0-9_]*)[[:space:]]*=[[:space:]]*(.*)$ ]] || continue
+    key="${BASH_REMATCH[2]}"
+    value="${BASH_REMATCH[3]}"
+    if [[ "$value" =~ ^\"(.*)\"[[:space:]]*(#.*)?$ ]] || [[ "$value" =~ ^\'(.*)\'[[:space:]]*(#.*)?$ ]]; then
+      value="${BASH_REMATCH[1]}"
+    else
+      value="${value%%[[:space:]]#*}"            # trailing comment
+      value="${value%"${value##*[![:space:]]}"}" # trailing spaces
+    fi
+    if [[ -z "${!key+x}" ]]; then export "$key=$value"; fi
+  done <"$file"
+}
+
+# Node.js 20.19+ (or 22+) is required; say so plainly instead of failing later.
+check_node() {
+  command -v node >/dev/null 2>&1 || die "Node.js is not installed. Install Node.js 20.19 or newer (https://nodejs.org), then run this again."
+  local version major minor
+  version="$(node -p 'process.versions.node')"
+  major="${version%%.*}"
+  minor="${version#*.}"; minor="${minor%%.*}"
+  if ((major < 20 || (major == 20 && minor < 19))); then
+    die "Node.js $version is too old; Ringdown needs 20.19 or newer."
+  fi
+}
+
+# Installs dependencies when node_modules is missing, or reinstalls them exactly from the
+# lockfile when package-lock.json is newer than the last install (npm records each install in
+# node_modules/.package-lock.json).
+ensure_dependencies() {
+  local marker="$RINGDOWN_ROOT/node_modules/.package-lock.json"
+  if [[ ! -d "$RINGDOWN_ROOT/node_modules" || ! -f "$marker" ]]; then
+    log "Installing dependencies (npm ci)"
+    (cd "$RINGDOWN_ROOT" && npm ci --no-audit --no-fund)
+  elif [[ "$RINGDOWN_ROOT/package-lock.json" -nt "$marker" ]]; then
+    log "package-lock.json changed since the last install: reinstalling (npm ci)"
+    (cd "$RINGDOWN_ROOT" && npm ci --no-audit --no-fund)
+  fi
+}

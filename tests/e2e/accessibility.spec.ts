@@ -1,0 +1,34 @@
+import AxeBuilder from "@axe-core/playwright";
+import { expect, test, type Page } from "@playwright/test";
+import { accountMenu, newAccount, shopSwitcher, signUp } from "./support";
+
+// axe-core checks the rendered pages against WCAG 2.x A and AA rules.
+async function violations(page: Page) {
+  const results = await new AxeBuilder({ page }).withTags(["wcag2a", "wcag2aa", "wcag21a", "wcag21aa"]).analyze();
+  return results.violations.map((v) => `${v.id} (${v.impact}): ${v.help} — ${v.nodes.map((n) => n.target.join(" ")).join(", ")}`);
+}
+
+test("the sign-in and sign-up pages pass axe's WCAG A/AA rules", async ({ page }) => {
+  await page.goto("/sign-in");
+  await expect(page.getByRole("heading", { level: 1, name: "Sign in" })).toBeVisible();
+  expect(await violations(page)).toEqual([]);
+
+  await page.goto("/sign-up");
+  await page.getByRole("button", { name: "Create account and shop" }).click();
+  await expect(page.getByLabel("Your name")).toHaveAttribute("aria-invalid", "true");
+  expect(await violations(page)).toEqual([]);
+});
+
+test("the shell, its shop list and its account menu pass axe's WCAG A/AA rules", async ({ page }) => {
+  await signUp(page, newAccount());
+  expect(await violations(page)).toEqual([]);
+
+  await shopSwitcher(page).click();
+  await expect(page.getByRole("button", { name: "New shop…" })).toBeVisible();
+  expect(await violations(page)).toEqual([]);
+  await page.keyboard.press("Escape");
+
+  await accountMenu(page).click();
+  await expect(page.getByRole("button", { name: "Sign out" })).toBeVisible();
+  expect(await violations(page)).toEqual([]);
+});
