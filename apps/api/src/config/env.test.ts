@@ -52,6 +52,13 @@ describe("parseConfig", () => {
     expect(config.rateLimits.signupPerIp.limit).toBe(2);
   });
 
+  it("follows the local cluster ports for the default database", () => {
+    expect(parseConfig({ RINGDOWN_PG_DEV_PORT: "6543" }).databaseUrl).toBe("postgres://postgres@127.0.0.1:6543/ringdown");
+    expect(parseConfig({ NODE_ENV: "test", RINGDOWN_PG_TEST_PORT: "6544" }).databaseUrl).toBe(
+      "postgres://postgres@127.0.0.1:6544/ringdown_test",
+    );
+  });
+
   it("treats empty values as unset", () => {
     expect(parseConfig({ PORT: "", SEED_DEMO: "" })).toMatchObject({ port: 3000, seedDemo: false });
   });

@@ -2,19 +2,16 @@
  * The API's configuration. This is the only module that reads `process.env`; everything else
  * receives an `AppConfig`. Every variable is described in the repository's `.env.example`.
  */
+import { existsSync, readFileSync } from "node:fs";
 import path from "node:path";
 import { fileURLToPath } from "node:url";
+import { parseEnv } from "node:util";
 import { z } from "zod";
 
 /** Repository root: this file sits at apps/api/{src,dist}/config/. */
 export const repoRoot = fileURLToPath(new URL("../../../../", import.meta.url));
 
 const DEV_JWT_SECRET = "ringdown-local-development-secret-not-for-production";
-/** Without DATABASE_URL: the local dev cluster, or the test cluster's test database under NODE_ENV=test. */
-const DEFAULT_DATABASE_URL = {
-  development: "postgres://postgres@127.0.0.1:5433/ringdown",
-  test: "postgres://postgres@127.0.0.1:5434/ringdown_test",
-} as const;
 
 export interface RateLimitRule {
   /** Requests (or failed attempts) allowed per window. */
@@ -69,6 +66,9 @@ const envSchema = z
     LOGIN_MAX_PER_IP: positiveInt(30),
     LOGIN_MAX_PER_ACCOUNT: positiveInt(10),
     SIGNUP_MAX_PER_IP: positiveInt(20),
+    // Ports of the local clusters (docker-free-db/pg.sh), used for the default DATABASE_URL.
+    RINGDOWN_PG_DEV_PORT: z.coerce.number<string>().int().min(1).max(65535).default(5433),
+    RINGDOWN_PG_TEST_PORT: z.coerce.number<string>().int().min(1).max(65535).default(5434),
   })
   .superRefine((env, ctx) => {
     if (env.NODE_ENV !== "production") return;
@@ -94,7 +94,12 @@ export function parseConfig(env: Record<string, string | undefined>): AppConfig 
     nodeEnv: e.NODE_ENV,
     isProduction,
     port: e.PORT,
-    databaseUrl: e.DATABASE_URL ?? DEFAULT_DATABASE_URL[e.NODE_ENV === "test" ? "test" : "development"],
+    // Without DATABASE_URL: the local dev cluster, or the test cluster's test database in tests.
+    databaseUrl:
+      e.DATABASE_URL ??
+      (e.NODE_ENV === "test"
+        ? `postgres://postgres@127.0.0.1:${e.RINGDOWN_PG_TEST_PORT}/ringdown_test`
+        : `postgres://postgres@127.0.0.1:${e.RINGDOWN_PG_DEV_PORT}/ringdown`),
     jwtSecret: e.JWT_SECRET ?? DEV_JWT_SECRET,
     sessionTtlHours: e.SESSION_TTL_HOURS,
     webDist: path.resolve(repoRoot, e.WEB_DIST),
@@ -109,10 +114,20 @@ export function parseConfig(env: Record<string, string | undefined>): AppConfig 
   };
 }
 
+/** Values from the repository's `.env` file, if there is one. */
+function dotenvFile(): Record<string, string | undefined> {
+  const file = path.join(repoRoot, ".env");
+  return existsSync(file) ? parseEnv(readFileSync(file, "utf8")) : {};
+}
+
 let cached: AppConfig | undefined;
 
-/** The process's configuration, parsed from `process.env` once. */
+/**
+ * The process's configuration, parsed once from `process.env` over the repository's `.env`
+ * (the environment wins). Tests (NODE_ENV=test) ignore `.env` so a developer's settings never
+ * point them at another database.
+ */
 export function readConfig(): AppConfig {
-  cached ??= parseConfig(process.env);
+  cached ??= parseConfig(process.env.NODE_ENV === "test" ? process.env : { ...dotenvFile(), ...process.env });
   return cached;
 }
