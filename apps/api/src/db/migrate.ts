@@ -3,6 +3,7 @@ import type { Sequelize } from "sequelize";
 import { SequelizeStorage, Umzug, type MigrationFn } from "umzug";
 import * as m0001 from "./migrations/0001-users-shops-memberships.js";
 import * as m0002 from "./migrations/0002-sessions-and-rate-limits.js";
+import * as m0003 from "./migrations/0003-library-and-recipes.js";
 
 type Migration = { up: MigrationFn<Sequelize>; down: MigrationFn<Sequelize> };
 
@@ -10,6 +11,7 @@ type Migration = { up: MigrationFn<Sequelize>; down: MigrationFn<Sequelize> };
 const migrations: Array<{ name: string } & Migration> = [
   { name: "0001-users-shops-memberships", ...m0001 },
   { name: "0002-sessions-and-rate-limits", ...m0002 },
+  { name: "0003-library-and-recipes", ...m0003 },
 ];
 
 // Any constant shared by every API instance; serialises concurrent start-ups on one database.

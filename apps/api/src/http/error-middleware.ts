@@ -1,12 +1,21 @@
 import type { ErrorRequestHandler, RequestHandler } from "express";
 import { BaseError, ConnectionError, UniqueConstraintError } from "sequelize";
 import { ZodError } from "zod";
-import type { ApiError } from "@ringdown/contracts";
+import type { ApiError, ErrorCode } from "@ringdown/contracts";
 import { AppError, statusByCode } from "./app-error.js";
 import { fieldErrors } from "./validate.js";
 
-/** Errors raised by express.json() (body-parser) carry a `type`. */
-type BodyParserError = Error & { type?: string; status?: number };
+/** Errors raised by express.json() (body-parser) carry a `type`; http-errors carry `status` + `expose`. */
+type BodyParserError = Error & { type?: string; status?: number; expose?: boolean };
+
+const codeByClientStatus: Record<number, ErrorCode> = {
+  400: "validation_failed",
+  401: "unauthenticated",
+  403: "forbidden",
+  404: "not_found",
+  413: "payload_too_large",
+  415: "unsupported_media_type",
+};
 
 function toAppError(err: unknown): AppError | undefined {
   if (err instanceof AppError) return err;
@@ -29,8 +38,15 @@ function toAppError(err: unknown): AppError | undefined {
     case "charset.unsupported":
       return new AppError("unsupported_media_type", "Send the request body as UTF-8 JSON.");
     default:
-      return undefined;
+      break;
   }
+  // Client errors raised by Express itself.
+  if (err instanceof URIError) return AppError.validation("The address contains an invalid %-escape.");
+  const { status, expose, message } = (err ?? {}) as BodyParserError;
+  if (typeof status === "number" && status >= 400 && status < 500 && expose) {
+    return new AppError(codeByClientStatus[status] ?? "validation_failed", message || "The request is not valid.");
+  }
+  return undefined;
 }
 
 /** The one error middleware: maps every error onto `{ error: { code, message, fields? } }`. */

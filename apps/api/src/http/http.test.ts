@@ -33,6 +33,13 @@ describe("API fallbacks and headers", () => {
     expect(res.headers["x-powered-by"]).toBeUndefined();
   });
 
+  it("answers 400 (not 500) for a URL with a broken %-escape in a parameter", async () => {
+    const person = await createPerson(app, "badurl");
+    const res = await person.agent.get("/api/shops/%E0%A4%A/members");
+    expect(res.status).toBe(400);
+    expect(apiErrorSchema.parse(res.body).error.code).toBe("validation_failed");
+  });
+
   it("answers 413 for an oversized JSON body", async () => {
     const res = await request(app)
       .post("/api/auth/login")
