@@ -1,0 +1,450 @@
+/**
+ * Shared numerical core of the zero-order (Altintas–Budak) milling stability model.
+ *
+ * The eigenvalues of [α][Φ(ω)] do not depend on spindle speed, so they are solved once on a
+ * frequency grid (dense around each mode, log-spaced elsewhere) and every speed question —
+ * the limit at one speed, the envelope over a thousand speeds — is answered by walking that grid.
+ *
+ * Notation (Altintas & Budak 1995; Altintas, Manufacturing Automation, 2nd ed., ch. 3):
+ *   λ = eigenvalue of [α][Φ], Λ = −1/λ, a_lim = −(2π Λ_R / (N Kt))(1 + κ²), κ = Λ_I/Λ_R.
+ *   Substituting Λ = −1/λ gives the simpler a_lim = 2π / (N · Kt · Re λ) (valid where Re λ > 0),
+ *   and ε = π − 2 atan κ = π + 2 atan(Im λ / Re λ); n = 60 fc / (N (k + ε/2π)).
+ * The two eigenvalues come out of the quadratic formula in an order that flips where the complex
+ * square root crosses its branch cut; they are re-ordered by continuity from one grid frequency to
+ * the next, otherwise lobes would be stitched from pieces of different branches.
+ */
+import type { DirectionalFactors } from "../directional-factors.js";
+import type { Mode } from "../mode.js";
+
+/** Receptances of the x and y directions on a frequency grid [mm/N]. */
+export interface FrfGrid {
+  size: number;
+  frequencyHz: Float64Array;
+  xxRe: Float64Array;
+  xxIm: Float64Array;
+  yyRe: Float64Array;
+  yyIm: Float64Array;
+}
+
+/** Grid resolution: log-spaced base points plus points clustered around each mode. */
+export interface GridDensity {
+  basePoints: number;
+  perModePoints: number;
+}
+
+/** Coarse grid for per-recipe checks (recommend). */
+export const FAST_GRID: GridDensity = { basePoints: 48, perModePoints: 48 };
+/** Fine grid for drawing a lobe diagram. */
+export const FINE_GRID: GridDensity = { basePoints: 500, perModePoints: 500 };
+
+/** Frequency band that covers the lobes of interest for a speed range. */
+export function frequencyBandHz(modes: readonly Mode[], flutes: number, minRpm: number, maxRpm: number): { loHz: number; hiHz: number } {
+  let fMin = Infinity;
+  let fMax = 0;
+  for (const m of modes) {
+    fMin = Math.min(fMin, m.frequencyHz);
+    fMax = Math.max(fMax, m.frequencyHz);
+  }
+  // Lobe k = 0 at speed n crosses at fc ≤ n·N/60 (ε ≤ 2π), so the top of the band must reach the
+  // tooth-passing frequency at the highest speed; below the lowest mode the real part of a
+  // receptance is positive and slot/up-milling cuts are stable, but down-milling can be unstable
+  // just below a mode, hence the margin.
+  const loHz = Math.min(0.25 * fMin, (0.25 * minRpm * flutes) / 60);
+  const hiHz = Math.max(4 * fMax, (1.25 * maxRpm * flutes) / 60);
+  return { loHz, hiHz };
+}
+
+/** Builds the sorted frequency grid. */
+export function frequencyGrid(modes: readonly Mode[], loHz: number, hiHz: number, density: GridDensity): Float64Array {
+  const values: number[] = [];
+  const span = Math.log(hiHz / loHz);
+  for (let i = 0; i < density.basePoints; i++) values.push(loHz * Math.exp((span * i) / (density.basePoints - 1)));
+  // Around each mode: f = fn (1 + ζ t), t = 2 sinh(u), u uniform — fine near the resonance where
+  // the boundary has its minimum, coarser in the wings.
+  const uLo = Math.asinh(-30);
+  const uHi = Math.asinh(60);
+  for (const m of modes) {
+    for (let i = 0; i < density.perModePoints; i++) {
+      const u = uLo + ((uHi - uLo) * i) / (density.perModePoints - 1);
+      const f = m.frequencyHz * (1 + m.dampingRatio * 2 * Math.sinh(u));
+      if (f > loHz && f < hiHz) values.push(f);
+    }
+  }
+  const sorted = Float64Array.from(values).sort();
+  // Drop near-duplicates so that no grid segment is degenerate.
+  const out: number[] = [];
+  for (const f of sorted) {
+    const last = out[out.length - 1];
+    if (last === undefined || f - last > 1e-9 * f) out.push(f);
+  }
+  return Float64Array.from(out);
+}
+
+/** Sum of single-mode receptances G = 1 / (k (1 − r² + 2iζr)) per direction on a grid. */
+export function frfOnGrid(modes: readonly Mode[], frequencyHz: Float64Array): FrfGrid {
+  const size = frequencyHz.length;
+  const xxRe = new Float64Array(size);
+  const xxIm = new Float64Array(size);
+  const yyRe = new Float64Array(size);
+  const yyIm = new Float64Array(size);
+  for (const m of modes) {
+    const re = m.direction === "x" ? xxRe : yyRe;
+    const im = m.direction === "x" ? xxIm : yyIm;
+    for (let i = 0; i < size; i++) {
+      const r = frequencyHz[i]! / m.frequencyHz;
+      const d = 1 - r * r;
+      const e = 2 * m.dampingRatio * r;
+      const s = 1 / (m.stiffnessNPerMm * (d * d + e * e));
+      re[i]! += d * s;
+      im[i]! -= e * s;
+    }
+  }
+  return { size, frequencyHz, xxRe, xxIm, yyRe, yyIm };
+}
+
+const cache = new Map<string, FrfGrid>();
+const CACHE_SIZE = 16;
+
+/** FRF grid for a set of modes, memoised (a shop re-checks many recipes on the same machine). */
+export function cachedFrfGrid(modes: readonly Mode[], loHz: number, hiHz: number, density: GridDensity): FrfGrid {
+  let key = `${loHz}|${hiHz}|${density.basePoints}|${density.perModePoints}`;
+  for (const m of modes) key += `|${m.direction}${m.frequencyHz},${m.dampingRatio},${m.stiffnessNPerMm}`;
+  const hit = cache.get(key);
+  if (hit) {
+    cache.delete(key);
+    cache.set(key, hit);
+    return hit;
+  }
+  const grid = frfOnGrid(modes, frequencyGrid(modes, loHz, hiHz, density));
+  cache.set(key, grid);
+  if (cache.size > CACHE_SIZE) cache.delete(cache.keys().next().value as string);
+  return grid;
+}
+
+/** Eigenvalue branches of [α][Φ] on the grid, with the limiting depth and phase of each. */
+export interface Branches {
+  size: number;
+  frequencyHz: Float64Array;
+  /** Re λ, Im λ per branch */
+  lr: [Float64Array, Float64Array];
+  li: [Float64Array, Float64Array];
+  /** a_lim [mm] per branch; ≤ 0 where the branch gives no boundary (Re λ ≤ 0) */
+  a: [Float64Array, Float64Array];
+  /** ε [rad] per branch */
+  eps: [Float64Array, Float64Array];
+}
+
+/** Eigenvalues of the 2×2 complex matrix [α][Φ] in closed form (quadratic formula). */
+function eigen2(
+  alpha: DirectionalFactors,
+  xr: number,
+  xi: number,
+  yr: number,
+  yi: number,
+  out: Float64Array,
+): void {
+  const det = alpha.xx * alpha.yy - alpha.xy * alpha.yx;
+  const a1r = alpha.xx * xr + alpha.yy * yr;
+  const a1i = alpha.xx * xi + alpha.yy * yi;
+  const pr = xr * yr - xi * yi;
+  const pi = xr * yi + xi * yr;
+  const dr = a1r * a1r - a1i * a1i - 4 * det * pr;
+  const di = 2 * a1r * a1i - 4 * det * pi;
+  const mod = Math.sqrt(dr * dr + di * di);
+  const sr = Math.sqrt(Math.max(0, (mod + dr) / 2));
+  let si = Math.sqrt(Math.max(0, (mod - dr) / 2));
+  if (di < 0) si = -si;
+  out[0] = (a1r + sr) / 2;
+  out[1] = (a1i + si) / 2;
+  out[2] = (a1r - sr) / 2;
+  out[3] = (a1i - si) / 2;
+}
+
+/**
+ * Solves both eigenvalue branches on the grid. `swapAxes` treats the grid's y receptance as the
+ * feed direction (feeding along machine Y).
+ */
+export function solveBranches(grid: FrfGrid, alpha: DirectionalFactors, flutes: number, ktNPerMm2: number, swapAxes: boolean): Branches {
+  const n = grid.size;
+  const lr0 = new Float64Array(n);
+  const li0 = new Float64Array(n);
+  const lr1 = new Float64Array(n);
+  const li1 = new Float64Array(n);
+  const a0 = new Float64Array(n);
+  const a1 = new Float64Array(n);
+  const e0 = new Float64Array(n);
+  const e1 = new Float64Array(n);
+  const fxr = swapAxes ? grid.yyRe : grid.xxRe;
+  const fxi = swapAxes ? grid.yyIm : grid.xxIm;
+  const fyr = swapAxes ? grid.xxRe : grid.yyRe;
+  const fyi = swapAxes ? grid.xxIm : grid.yyIm;
+  const c = (2 * Math.PI) / (flutes * ktNPerMm2);
+  const axx = alpha.xx;
+  const ayy = alpha.yy;
+  const det4 = 4 * (alpha.xx * alpha.yy - alpha.xy * alpha.yx);
+  let pr0 = 0;
+  let pi0 = 0;
+  let pr1 = 0;
+  let pi1 = 0;
+  for (let i = 0; i < n; i++) {
+    // Closed-form eigenvalues of [α][Φ] (see eigen2), inlined: this loop is the hot path.
+    const xr = fxr[i]!;
+    const xi = fxi[i]!;
+    const yr = fyr[i]!;
+    const yi = fyi[i]!;
+    const a1r = axx * xr + ayy * yr;
+    const a1i = axx * xi + ayy * yi;
+    const dr = a1r * a1r - a1i * a1i - det4 * (xr * yr - xi * yi);
+    const di = 2 * a1r * a1i - det4 * (xr * yi + xi * yr);
+    const mod = Math.sqrt(dr * dr + di * di);
+    const sr = Math.sqrt(Math.max(0, (mod + dr) * 0.5));
+    const si0 = Math.sqrt(Math.max(0, (mod - dr) * 0.5));
+    const si = di < 0 ? -si0 : si0;
+    let ar = (a1r + sr) * 0.5;
+    let ai = (a1i + si) * 0.5;
+    let br = (a1r - sr) * 0.5;
+    let bi = (a1i - si) * 0.5;
+    if (i > 0) {
+      const d00r = ar - pr0;
+      const d00i = ai - pi0;
+      const d11r = br - pr1;
+      const d11i = bi - pi1;
+      const d10r = br - pr0;
+      const d10i = bi - pi0;
+      const d01r = ar - pr1;
+      const d01i = ai - pi1;
+      const straight = d00r * d00r + d00i * d00i + d11r * d11r + d11i * d11i;
+      const swapped = d10r * d10r + d10i * d10i + d01r * d01r + d01i * d01i;
+      if (swapped < straight) {
+        const tr = ar;
+        const ti = ai;
+        ar = br;
+        ai = bi;
+        br = tr;
+        bi = ti;
+      }
+    }
+    lr0[i] = ar;
+    li0[i] = ai;
+    lr1[i] = br;
+    li1[i] = bi;
+    if (ar > 0) {
+      a0[i] = c / ar;
+      e0[i] = Math.PI + 2 * Math.atan(ai / ar);
+    } else {
+      a0[i] = -1;
+      e0[i] = 0;
+    }
+    if (br > 0) {
+      a1[i] = c / br;
+      e1[i] = Math.PI + 2 * Math.atan(bi / br);
+    } else {
+      a1[i] = -1;
+      e1[i] = 0;
+    }
+    pr0 = ar;
+    pi0 = ai;
+    pr1 = br;
+    pi1 = bi;
+  }
+  return { size: n, frequencyHz: grid.frequencyHz, lr: [lr0, lr1], li: [li0, li1], a: [a0, a1], eps: [e0, e1] };
+}
+
+/** Where the boundary at one speed was found. */
+export interface BoundaryHit {
+  limitingDepthMm: number;
+  chatterFrequencyHz: number;
+  lobeIndex: number;
+  branch: 0 | 1;
+  segment: number;
+  t: number;
+}
+
+/**
+ * Lowest boundary crossing at one spindle speed: along each branch, g(f) = 60f/(N n) − ε/2π
+ * passes through the integer k exactly where lobe k meets speed n.
+ */
+export function boundaryAtRpm(br: Branches, flutes: number, rpm: number): BoundaryHit | null {
+  const q = 60 / (flutes * rpm);
+  const twoPi = 2 * Math.PI;
+  let best: BoundaryHit | null = null;
+  const f = br.frequencyHz;
+  for (let b = 0 as 0 | 1; b <= 1; b = (b + 1) as 0 | 1) {
+    const a = br.a[b];
+    const eps = br.eps[b];
+    let prevValid = a[0]! > 0;
+    let gPrev = q * f[0]! - eps[0]! / twoPi;
+    for (let i = 1; i < br.size; i++) {
+      const valid = a[i]! > 0;
+      const g = q * f[i]! - eps[i]! / twoPi;
+      if (valid && prevValid) {
+        const lo = Math.min(gPrev, g);
+        const hi = Math.max(gPrev, g);
+        const kLo = Math.max(0, Math.ceil(lo));
+        for (let k = kLo; k <= hi; k++) {
+          const t = g === gPrev ? 0 : (k - gPrev) / (g - gPrev);
+          const depth = a[i - 1]! + t * (a[i]! - a[i - 1]!);
+          if (best === null || depth < best.limitingDepthMm) {
+            best = {
+              limitingDepthMm: depth,
+              chatterFrequencyHz: f[i - 1]! + t * (f[i]! - f[i - 1]!),
+              lobeIndex: k,
+              branch: b,
+              segment: i - 1,
+              t,
+            };
+          }
+        }
+      }
+      prevValid = valid;
+      gPrev = g;
+    }
+    if (b === 1) break;
+  }
+  return best;
+}
+
+/** Lower envelope of all lobes on a uniform speed grid. NaN marks speeds with no boundary in the band. */
+export interface Envelope {
+  rpm: Float64Array;
+  limitingDepthMm: Float64Array;
+  chatterFrequencyHz: Float64Array;
+  lobeIndex: Float64Array;
+}
+
+export function envelopeOverSpeeds(br: Branches, flutes: number, minRpm: number, maxRpm: number, count: number, maxLobes: number): Envelope {
+  const rpm = new Float64Array(count);
+  const depth = new Float64Array(count).fill(NaN);
+  const fc = new Float64Array(count).fill(NaN);
+  const lobe = new Float64Array(count).fill(NaN);
+  const step = count > 1 ? (maxRpm - minRpm) / (count - 1) : 0;
+  for (let j = 0; j < count; j++) rpm[j] = minRpm + step * j;
+  const f = br.frequencyHz;
+  const twoPi = 2 * Math.PI;
+  const c = 60 / flutes;
+  for (let b = 0; b <= 1; b++) {
+    const a = br.a[b as 0 | 1];
+    const eps = br.eps[b as 0 | 1];
+    for (let i = 0; i + 1 < br.size; i++) {
+      const a0 = a[i]!;
+      const a1 = a[i + 1]!;
+      if (!(a0 > 0 && a1 > 0)) continue;
+      const f0 = f[i]!;
+      const f1 = f[i + 1]!;
+      const e0 = eps[i]! / twoPi;
+      const e1 = eps[i + 1]! / twoPi;
+      // Lobes whose speeds n = 60 f / (N (k + ε/2π)) can fall inside [minRpm, maxRpm].
+      const kLo = Math.max(0, Math.floor((c * f0) / maxRpm - 1));
+      const kHi = Math.min(maxLobes - 1, Math.ceil((c * f1) / minRpm));
+      for (let k = kLo; k <= kHi; k++) {
+        const n0 = (c * f0) / (k + e0);
+        const n1 = (c * f1) / (k + e1);
+        const nLo = Math.min(n0, n1);
+        const nHi = Math.max(n0, n1);
+        if (nHi < minRpm || nLo > maxRpm) continue;
+        let jLo: number;
+        let jHi: number;
+        if (step > 0) {
+          jLo = Math.max(0, Math.ceil((nLo - minRpm) / step));
+          jHi = Math.min(count - 1, Math.floor((nHi - minRpm) / step));
+        } else {
+          jLo = 0;
+          jHi = nLo <= minRpm && minRpm <= nHi ? 0 : -1;
+        }
+        for (let j = jLo; j <= jHi; j++) {
+          const t = n1 === n0 ? 0 : (rpm[j]! - n0) / (n1 - n0);
+          const d = a0 + t * (a1 - a0);
+          if (!(d >= depth[j]!)) {
+            depth[j] = d;
+            fc[j] = f0 + t * (f1 - f0);
+            lobe[j] = k;
+          }
+        }
+      }
+    }
+  }
+  return { rpm, limitingDepthMm: depth, chatterFrequencyHz: fc, lobeIndex: lobe };
+}
+
+/** Exact eigenvalues of [α][Φ(f)] at one frequency (no grid). */
+export function eigenvaluesAt(modes: readonly Mode[], alpha: DirectionalFactors, frequencyHz: number, swapAxes: boolean, out: Float64Array): void {
+  let xr = 0;
+  let xi = 0;
+  let yr = 0;
+  let yi = 0;
+  for (const m of modes) {
+    const r = frequencyHz / m.frequencyHz;
+    const d = 1 - r * r;
+    const e = 2 * m.dampingRatio * r;
+    const s = 1 / (m.stiffnessNPerMm * (d * d + e * e));
+    const inX = (m.direction === "x") !== swapAxes;
+    if (inX) {
+      xr += d * s;
+      xi -= e * s;
+    } else {
+      yr += d * s;
+      yi -= e * s;
+    }
+  }
+  eigen2(alpha, xr, xi, yr, yi, out);
+}
+
+/**
+ * Refines a grid crossing with exact evaluations: bisection on h(f) = 60f/(N n) − ε(f)/2π − k over
+ * the bracketing grid segment, following the branch whose eigenvalue is nearest the grid's.
+ */
+export function refineHit(
+  hit: BoundaryHit,
+  br: Branches,
+  modes: readonly Mode[],
+  alpha: DirectionalFactors,
+  flutes: number,
+  ktNPerMm2: number,
+  rpm: number,
+  swapAxes: boolean,
+): BoundaryHit {
+  const i = hit.segment;
+  const b = hit.branch;
+  const f = br.frequencyHz;
+  const q = 60 / (flutes * rpm);
+  const c = (2 * Math.PI) / (flutes * ktNPerMm2);
+  const ev = new Float64Array(4);
+  const lrA = br.lr[b][i]!;
+  const liA = br.li[b][i]!;
+  const lrB = br.lr[b][i + 1]!;
+  const liB = br.li[b][i + 1]!;
+  const fA = f[i]!;
+  const fB = f[i + 1]!;
+  const evalAt = (freq: number): { h: number; a: number } | null => {
+    eigenvaluesAt(modes, alpha, freq, swapAxes, ev);
+    const t = (freq - fA) / (fB - fA);
+    const gr = lrA + t * (lrB - lrA);
+    const gi = liA + t * (liB - liA);
+    const d0 = (ev[0]! - gr) ** 2 + (ev[1]! - gi) ** 2;
+    const d1 = (ev[2]! - gr) ** 2 + (ev[3]! - gi) ** 2;
+    const lr = d0 <= d1 ? ev[0]! : ev[2]!;
+    const li = d0 <= d1 ? ev[1]! : ev[3]!;
+    if (!(lr > 0)) return null;
+    const eps = Math.PI + 2 * Math.atan(li / lr);
+    return { h: q * freq - eps / (2 * Math.PI) - hit.lobeIndex, a: c / lr };
+  };
+  let lo = fA;
+  let hi = fB;
+  const hLo = evalAt(lo);
+  const hHi = evalAt(hi);
+  if (!hLo || !hHi || hLo.h * hHi.h > 0) return hit;
+  let sLo = Math.sign(hLo.h);
+  let mid = 0.5 * (lo + hi);
+  let res = evalAt(mid);
+  for (let it = 0; it < 40 && res; it++) {
+    if (Math.sign(res.h) === sLo) {
+      lo = mid;
+      sLo = Math.sign(res.h);
+    } else hi = mid;
+    mid = 0.5 * (lo + hi);
+    res = evalAt(mid);
+    if (hi - lo < 1e-10 * mid) break;
+  }
+  if (!res) return hit;
+  return { ...hit, limitingDepthMm: res.a, chatterFrequencyHz: mid };
+}
