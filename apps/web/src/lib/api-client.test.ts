@@ -32,6 +32,16 @@ describe("apiRequest", () => {
     expect(init?.body).toBe(JSON.stringify({ email: "a@example.test" }));
   });
 
+  it("sends FormData as multipart, leaving the boundary header to the browser", async () => {
+    const fetchMock = respond(201, { ok: true });
+    const form = new FormData();
+    form.set("note", "ran clean");
+    await apiRequest("/shops/x/recipes/y/cut-logs", { method: "POST", body: form });
+    const [, init] = fetchMock.mock.calls[0]!;
+    expect(init?.body).toBe(form);
+    expect(new Headers(init?.headers).has("Content-Type")).toBe(false);
+  });
+
   it("turns the error envelope into an ApiError with field errors", async () => {
     respond(400, {
       error: { code: "validation_failed", message: "Check the highlighted fields.", fields: { password: "Use at least 10 characters" } },

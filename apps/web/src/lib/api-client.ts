@@ -69,7 +69,9 @@ export async function apiRequest<S extends z.ZodType | undefined = undefined>(
 ): Promise<Result<S>> {
   const { method = "GET", body, schema, signal } = options;
   const headers: Record<string, string> = { Accept: "application/json" };
-  if (body !== undefined) headers["Content-Type"] = "application/json";
+  // FormData (file uploads) goes as multipart: the browser sets the boundary header itself.
+  const isForm = typeof FormData !== "undefined" && body instanceof FormData;
+  if (body !== undefined && !isForm) headers["Content-Type"] = "application/json";
 
   let response: Response;
   try {
@@ -77,7 +79,7 @@ export async function apiRequest<S extends z.ZodType | undefined = undefined>(
       method,
       headers,
       credentials: "same-origin",
-      body: body === undefined ? undefined : JSON.stringify(body),
+      body: body === undefined ? undefined : isForm ? body : JSON.stringify(body),
       signal,
     });
   } catch (cause) {
