@@ -6,3 +6,4 @@ export * from "./shops.js";
 export * from "./members.js";
 export * from "./library.js";
 export * from "./recipes.js";
+export * from "./planning.js";
