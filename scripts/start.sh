@@ -19,6 +19,8 @@ if [[ -z "${DATABASE_URL:-}" ]]; then
 fi
 export DATABASE_URL
 export PORT="${PORT:-3000}"
+# Say it now rather than after the build.
+ensure_port_free "$PORT"
 export SEED_DEMO="${SEED_DEMO:-true}"
 export WEB_DIST="${WEB_DIST:-$RINGDOWN_ROOT/apps/web/dist}"
 

@@ -51,3 +51,18 @@ ensure_dependencies() {
     (cd "$RINGDOWN_ROOT" && npm ci --no-audit --no-fund)
   fi
 }
+
+# Fails with one clear line when something already listens on the TCP port.
+ensure_port_free() {
+  local port="$1" status=0
+  node -e '
+    const server = require("node:net").createServer();
+    server.once("error", (e) => process.exit(e.code === "EADDRINUSE" ? 3 : 4));
+    server.listen(Number(process.argv[1]), () => server.close(() => process.exit(0)));
+  ' "$port" || status=$?
+  case "$status" in
+    0) ;;
+    3) die "port $port is already in use by another program; stop it or choose another port, e.g. PORT=$((port + 1)) npm start" ;;
+    *) die "cannot listen on port $port (not a usable port number, or not permitted)" ;;
+  esac
+}

@@ -18,7 +18,7 @@ test("the demo shop's owner signs in and sees the shop and every main area", asy
   for (const area of ["Planner", "Recipes", "Cutters", "Materials", "Machines", "Team", "Billing"]) {
     await nav.getByRole("link", { name: area }).click();
     await expect(page.getByRole("heading", { level: 1, name: area })).toBeVisible();
-    await expect(page.getByRole("heading", { level: 2, name: `${area} is not available yet` })).toBeVisible();
+    await expect(page.getByRole("heading", { level: 2, name: `The ${area.toLowerCase()} area is not available yet` })).toBeVisible();
     await expect(nav.getByRole("link", { name: area })).toHaveAttribute("aria-current", "page");
     await expect(page).toHaveTitle(`${area} · Ringdown`);
   }

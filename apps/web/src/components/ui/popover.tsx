@@ -44,7 +44,8 @@ export function Popover({
     };
     const onKeyDown = (event: KeyboardEvent) => {
       if (event.key === "Escape") {
-        event.stopPropagation();
+        // Handled here: the drawer around the rail must not close too.
+        event.preventDefault();
         close(true);
       }
     };

@@ -20,6 +20,14 @@ export function AppShell({ me, children }: { me: Me; children: ReactNode }) {
   const active = activeMembership(me);
 
   useEffect(() => setDrawerOpen(false), [pathname]);
+  useEffect(() => {
+    if (!drawerOpen) return;
+    const onKeyDown = (event: KeyboardEvent) => {
+      if (event.key === "Escape" && !event.defaultPrevented) setDrawerOpen(false);
+    };
+    document.addEventListener("keydown", onKeyDown);
+    return () => document.removeEventListener("keydown", onKeyDown);
+  }, [drawerOpen]);
 
   return (
     <div className="min-h-dvh md:grid md:grid-cols-[15rem_minmax(0,1fr)]">
@@ -46,14 +54,14 @@ export function AppShell({ me, children }: { me: Me; children: ReactNode }) {
       </header>
 
       {drawerOpen && (
-        <div aria-hidden className="fixed inset-0 z-30 bg-ink/30 md:hidden" onClick={() => setDrawerOpen(false)} />
+        <div aria-hidden className="fixed inset-x-0 top-14 bottom-0 z-30 bg-ink/30 md:hidden" onClick={() => setDrawerOpen(false)} />
       )}
 
       <div
         id="app-rail"
         className={cn(
           "flex-col gap-5 border-r border-rule bg-paper px-3 py-4",
-          "max-md:fixed max-md:inset-y-0 max-md:left-0 max-md:z-40 max-md:w-72 max-md:overflow-y-auto max-md:shadow-xl",
+          "max-md:fixed max-md:top-14 max-md:bottom-0 max-md:left-0 max-md:z-40 max-md:w-72 max-md:max-w-[85vw] max-md:overflow-y-auto max-md:shadow-xl",
           "md:sticky md:top-0 md:flex md:h-dvh",
           drawerOpen ? "flex" : "hidden",
         )}

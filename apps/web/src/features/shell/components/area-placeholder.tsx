@@ -14,7 +14,7 @@ export function AreaPlaceholder({ area: key }: { area: AreaKey }) {
         <p className="mt-1 text-sm text-muted">{area.purpose}</p>
       </header>
       <Card>
-        <EmptyState icon={area.icon} title={`${area.label} is not available yet`}>
+        <EmptyState icon={area.icon} title={`The ${area.label.toLowerCase()} area is not available yet`}>
           <p>{area.comingUp}</p>
         </EmptyState>
       </Card>

@@ -29,7 +29,7 @@ export function ShopSwitcher({ me }: { me: Me }) {
           >
             <span className="min-w-0 flex-1">
               <span className="block text-[0.6875rem] font-medium uppercase tracking-wide text-muted">Shop</span>
-              <span data-testid="active-shop-name" className="block truncate text-sm font-semibold text-ink">
+              <span className="line-clamp-2 block text-sm font-semibold break-words text-ink">
                 {active?.shopName ?? "No shop selected"}
               </span>
               {active && <span className="block text-xs text-muted">{roleLabels[active.role]}</span>}
