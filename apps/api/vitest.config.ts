@@ -8,11 +8,15 @@ export default defineConfig({
     environment: "node",
     include: ["src/**/*.test.ts"],
     globalSetup: ["./src/test/global-setup.ts"],
-    // Files run in parallel forks against one database; tests never share rows (unique e-mails,
-    // their own shops, their own rate-limit counters).
+    // Files run in two forks against one database; tests never share rows (unique e-mails, their
+    // own shops, their own rate-limit counters). Each file connects in its own beforeAll-time code
+    // and disconnects in afterAll, so a fork can run its files one after another without
+    // re-importing Sequelize, Express and the contracts for every file (isolate: false).
     pool: "forks",
     maxWorkers: 2,
-    testTimeout: 20_000,
-    hookTimeout: 30_000,
+    isolate: false,
+    // Generous: bcrypt at cost 12 is slow by design, and CI machines may be busy.
+    testTimeout: 60_000,
+    hookTimeout: 60_000,
   },
 });

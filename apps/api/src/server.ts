@@ -8,7 +8,7 @@ import { ConfigError, readConfig, type AppConfig } from "./config/env.js";
 import { ensureDatabase, redact } from "./db/database-admin.js";
 import { migrate } from "./db/migrate.js";
 import { closeDatabase, connectDatabase, getSequelize } from "./db/sequelize.js";
-import { purgeExpiredRateLimits } from "./http/rate-limit-store.js";
+import { purgeExpiredRateLimits, settleRateLimitWrites } from "./http/rate-limit-store.js";
 import { seedDemo } from "./seed/index.js";
 
 const log = (line: string) => console.log(`[ringdown-api] ${line}`);
@@ -91,7 +91,8 @@ async function main(): Promise<void> {
     }, 10_000);
     force.unref();
     server.close(() => {
-      closeDatabase()
+      settleRateLimitWrites()
+        .then(closeDatabase)
         .catch((error: unknown) => console.error("[ringdown-api] closing the database failed:", error))
         .finally(() => {
           log("stopped");

@@ -1,6 +1,24 @@
 import type { Options, Store, ClientRateLimitInfo } from "express-rate-limit";
 import { QueryTypes, type Sequelize } from "sequelize";
 
+/** Counter writes still in flight (a decrement runs after the response has been sent). */
+const inFlight = new Set<Promise<unknown>>();
+
+function track<T>(work: Promise<T>): Promise<T> {
+  inFlight.add(work);
+  void work.finally(() => inFlight.delete(work)).catch(() => undefined);
+  return work;
+}
+
+/**
+ * Waits for counter writes still running, e.g. before closing the database at shutdown. One
+ * macrotask first, so that writes queued by responses that just finished have started.
+ */
+export async function settleRateLimitWrites(): Promise<void> {
+  await new Promise((resolve) => setImmediate(resolve));
+  await Promise.allSettled([...inFlight]);
+}
+
 /**
  * express-rate-limit store keeping fixed-window counters in PostgreSQL, so that every API
  * instance sees the same counts (memory stores would give each instance its own allowance).
@@ -36,7 +54,7 @@ export class PostgresRateLimitStore implements Store {
   }
 
   async increment(key: string): Promise<ClientRateLimitInfo> {
-    const rows = await this.sequelize.query<{ hits: number; reset_at: Date }>(
+    const rows = await track(this.sequelize.query<{ hits: number; reset_at: Date }>(
       `INSERT INTO rate_limit_counters AS c (key, hits, reset_at)
        VALUES ($1, 1, now() + $2 * interval '1 millisecond')
        ON CONFLICT (key) DO UPDATE SET
@@ -44,16 +62,18 @@ export class PostgresRateLimitStore implements Store {
          reset_at = CASE WHEN c.reset_at <= now() THEN EXCLUDED.reset_at ELSE c.reset_at END
        RETURNING hits, reset_at`,
       { bind: [this.key(key), this.windowMs], type: QueryTypes.SELECT },
-    );
+    ));
     const row = rows[0];
     if (!row) throw new Error("rate limit upsert returned no row");
     return { totalHits: row.hits, resetTime: new Date(row.reset_at) };
   }
 
   async decrement(key: string): Promise<void> {
-    await this.sequelize.query(
-      `UPDATE rate_limit_counters SET hits = GREATEST(hits - 1, 0) WHERE key = $1 AND reset_at > now()`,
-      { bind: [this.key(key)] },
+    await track(
+      this.sequelize.query(
+        `UPDATE rate_limit_counters SET hits = GREATEST(hits - 1, 0) WHERE key = $1 AND reset_at > now()`,
+        { bind: [this.key(key)] },
+      ),
     );
   }
 

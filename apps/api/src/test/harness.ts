@@ -9,6 +9,7 @@ import { meSchema, type Me, type Role } from "@ringdown/contracts";
 import { createApp } from "../app.js";
 import { readConfig, type AppConfig } from "../config/env.js";
 import { closeDatabase, connectDatabase } from "../db/sequelize.js";
+import { settleRateLimitWrites } from "../http/rate-limit-store.js";
 import { hashPassword } from "../modules/auth/password.js";
 import { signSessionToken } from "../modules/auth/session-token.js";
 import { addMember, createShopWithOwner } from "../modules/shops/shops.repository.js";
@@ -42,6 +43,7 @@ export function connectTestDatabase(): void {
 export async function disconnectTestDatabase(): Promise<void> {
   if (!connected) return;
   connected = false;
+  await settleRateLimitWrites();
   await closeDatabase();
 }
 
