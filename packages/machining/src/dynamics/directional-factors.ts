@@ -18,7 +18,7 @@ export interface DirectionalFactors {
  *
  * These equal the integrals over the engaged arc of the instantaneous matrix
  * a_xx = −[sin 2φ + Kr(1 − cos 2φ)], a_xy = −[(1 + cos 2φ) + Kr sin 2φ], a_yx = (1 − cos 2φ) − Kr sin 2φ,
- * a_yy = sin 2φ − Kr(1 + cos 2φ), each divided by 2 (checked numerically in the tests).
+ * a_yy = sin 2φ − Kr(1 + cos 2φ) (checked numerically in the tests).
  *
  * @param input.radialImmersion ae/D [-], 0 < ae/D ≤ 1
  * @param input.radialForceRatio Kr = Kr/Kt [-] (≥ 0)

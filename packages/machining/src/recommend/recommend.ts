@@ -349,9 +349,9 @@ function buildContext(input: RecommendInput): Context {
     shankDiameterMm: cutter.shankDiameterMm,
     youngsModulusGPa: youngs,
   });
-  // Runout: cutting edges on radii r_j = e·cos(2πj/z), e = TIR/2 (worst phase).
+  // Runout: cutting edges on radii r_j = e·sin(2πj/z + π/z), e = TIR/2 (worst phase; see runoutChipLoadsMm).
   const runoutSteps = new Float64Array(z * z);
-  const radius = (j: number): number => (tir / 2) * Math.cos((2 * Math.PI * (((j % z) + z) % z)) / z);
+  const radius = (j: number): number => (tir / 2) * Math.sin((2 * Math.PI * (((j % z) + z) % z) + Math.PI) / z);
   for (let j = 0; j < z; j++) for (let m = 1; m <= z; m++) runoutSteps[j * z + m - 1] = radius(j) - radius(j - m);
 
   // Machine stiffness at the work position.

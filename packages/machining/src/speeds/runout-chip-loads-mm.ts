@@ -2,7 +2,7 @@ import { requireNonNegative, requirePositive, requirePositiveInteger } from "../
 
 /** Feed taken by each flute of a cutter that runs out. */
 export interface RunoutChipLoads {
-  /** Feed per tooth actually removed by each flute, flute 0 being the one at the largest radius [mm]. */
+  /** Feed per tooth actually removed by each flute, flute 0 being the one that takes the largest chip [mm]. */
   perFluteMm: number[];
   /** Largest per-flute feed (the flute that carries the extra load) [mm]. */
   maxMm: number;
@@ -15,12 +15,13 @@ export interface RunoutChipLoads {
 /**
  * Feed per tooth removed by each flute when the cutter assembly runs out.
  *
- * The cutting edges sit on radii r_j = R + e·cos(2πj/z), e = TIR/2 (eccentric cutter; the
- * worst phase, flute 0 at the largest radius). Flute j removes what the previous flutes left:
+ * The cutting edges sit on radii r_j = R + e·sin(2πj/z + π/z), e = TIR/2 (an eccentric cutter in
+ * the phase that gives flute 0 the largest step over its predecessor). Flute j removes what the
+ * previous flutes left:
  *   h_j = max(0, min over m = 1…z of (m·fz + r_j − r_{j−m}))
- * For two flutes this gives fz + TIR on one flute and fz − TIR on the other (never below 0,
- * never more than 2·fz). The chip of each flute then thins with the engagement exactly as the
- * nominal chip does.
+ * so the largest chip is fz + TIR·sin(π/z) and the smallest fz − TIR·sin(π/z) (never below 0):
+ * for two flutes fz ± TIR (at most 2·fz). The chip of each flute then thins with the engagement
+ * exactly as the nominal chip does.
  *
  * Assumes parallel-axis runout (offset, no tilt) and a rigid cutter; true chip is also shaped
  * by the tooth path (trochoid), which is ignored (fz ≪ D).
@@ -40,7 +41,7 @@ export function runoutChipLoadsMm(input: { chipLoadMm: number; flutes: number; r
   requirePositiveInteger("runoutChipLoadsMm", "flutes", flutes);
   requireNonNegative("runoutChipLoadsMm", "runoutTirMm", runoutTirMm);
   const e = runoutTirMm / 2;
-  const radius = (j: number): number => e * Math.cos((2 * Math.PI * (((j % flutes) + flutes) % flutes)) / flutes);
+  const radius = (j: number): number => e * Math.sin((2 * Math.PI * (((j % flutes) + flutes) % flutes) + Math.PI) / flutes);
   const perFluteMm: number[] = [];
   let maxMm = 0;
   let minMm = Infinity;

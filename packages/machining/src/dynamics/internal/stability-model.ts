@@ -33,7 +33,7 @@ export interface GridDensity {
 }
 
 /** Coarse grid for per-recipe checks (recommend). */
-export const FAST_GRID: GridDensity = { basePoints: 48, perModePoints: 48 };
+export const FAST_GRID: GridDensity = { basePoints: 100, perModePoints: 100 };
 /** Fine grid for drawing a lobe diagram. */
 export const FINE_GRID: GridDensity = { basePoints: 500, perModePoints: 500 };
 
@@ -132,6 +132,8 @@ export interface Branches {
   a: [Float64Array, Float64Array];
   /** ε [rad] per branch */
   eps: [Float64Array, Float64Array];
+  /** 2π / (N · Kt): a_lim = scale / Re λ */
+  scale: number;
 }
 
 /** Eigenvalues of the 2×2 complex matrix [α][Φ] in closed form (quadratic formula). */
@@ -247,7 +249,7 @@ export function solveBranches(grid: FrfGrid, alpha: DirectionalFactors, flutes: 
     pr1 = br;
     pi1 = bi;
   }
-  return { size: n, frequencyHz: grid.frequencyHz, lr: [lr0, lr1], li: [li0, li1], a: [a0, a1], eps: [e0, e1] };
+  return { size: n, frequencyHz: grid.frequencyHz, lr: [lr0, lr1], li: [li0, li1], a: [a0, a1], eps: [e0, e1], scale: c };
 }
 
 /** Where the boundary at one speed was found. */
@@ -271,6 +273,7 @@ export function boundaryAtRpm(br: Branches, flutes: number, rpm: number): Bounda
   const f = br.frequencyHz;
   for (let b = 0 as 0 | 1; b <= 1; b = (b + 1) as 0 | 1) {
     const a = br.a[b];
+    const lr = br.lr[b];
     const eps = br.eps[b];
     let prevValid = a[0]! > 0;
     let gPrev = q * f[0]! - eps[0]! / twoPi;
@@ -283,7 +286,8 @@ export function boundaryAtRpm(br: Branches, flutes: number, rpm: number): Bounda
         const kLo = Math.max(0, Math.ceil(lo));
         for (let k = kLo; k <= hi; k++) {
           const t = g === gPrev ? 0 : (k - gPrev) / (g - gPrev);
-          const depth = a[i - 1]! + t * (a[i]! - a[i - 1]!);
+          // Interpolate Re λ (smooth), not a_lim = scale / Re λ (steep where Re λ → 0).
+          const depth = br.scale / (lr[i - 1]! + t * (lr[i]! - lr[i - 1]!));
           if (best === null || depth < best.limitingDepthMm) {
             best = {
               limitingDepthMm: depth,
@@ -324,11 +328,14 @@ export function envelopeOverSpeeds(br: Branches, flutes: number, minRpm: number,
   const c = 60 / flutes;
   for (let b = 0; b <= 1; b++) {
     const a = br.a[b as 0 | 1];
+    const lr = br.lr[b as 0 | 1];
     const eps = br.eps[b as 0 | 1];
     for (let i = 0; i + 1 < br.size; i++) {
       const a0 = a[i]!;
       const a1 = a[i + 1]!;
       if (!(a0 > 0 && a1 > 0)) continue;
+      const l0 = lr[i]!;
+      const l1 = lr[i + 1]!;
       const f0 = f[i]!;
       const f1 = f[i + 1]!;
       const e0 = eps[i]! / twoPi;
@@ -353,7 +360,7 @@ export function envelopeOverSpeeds(br: Branches, flutes: number, minRpm: number,
         }
         for (let j = jLo; j <= jHi; j++) {
           const t = n1 === n0 ? 0 : (rpm[j]! - n0) / (n1 - n0);
-          const d = a0 + t * (a1 - a0);
+          const d = br.scale / (l0 + t * (l1 - l0));
           if (!(d >= depth[j]!)) {
             depth[j] = d;
             fc[j] = f0 + t * (f1 - f0);
