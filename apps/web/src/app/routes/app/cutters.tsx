@@ -1,5 +1,5 @@
-import { AreaPlaceholder } from "@/features/shell/components/area-placeholder";
+import { CuttersPage } from "@/features/cutters/components/cutters-page";
 
 export function CuttersRoute() {
-  return <AreaPlaceholder area="cutters" />;
+  return <CuttersPage />;
 }
