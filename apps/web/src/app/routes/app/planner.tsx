@@ -1,5 +1,85 @@
-import { AreaPlaceholder } from "@/features/shell/components/area-placeholder";
+import { operations, type Operation } from "@ringdown/contracts";
+import { useMemo } from "react";
+import { useSearchParams } from "react-router-dom";
+import { Card } from "@/components/ui/card";
+import { EmptyState } from "@/components/ui/empty-state";
+import { MachineMaterialEvidence } from "@/features/cut-logs/components/machine-material-evidence";
+import { Planner } from "@/features/planner/components/planner";
+import { lengthInputText, type PlannerValues } from "@/features/planner/lib/planner-values";
+import { useActiveShop } from "@/lib/active-shop";
+import { useUnitSystem } from "@/lib/auth";
+import { useDocumentTitle } from "@/lib/use-document-title";
+
+/**
+ * Starting choices from the address (e.g. a recipe's "Open in planner"): ids, the operation and
+ * lengths in mm (ap, ae, x, y, fz), rpm and the milling direction.
+ */
+function initialFromSearch(search: URLSearchParams, system: "metric" | "imperial"): Partial<PlannerValues> {
+  const initial: Partial<PlannerValues> = {};
+  const id = (key: "machineId" | "assemblyId" | "materialId") => {
+    const v = search.get(key);
+    if (v) initial[key] = v;
+  };
+  id("machineId");
+  id("assemblyId");
+  id("materialId");
+  const op = search.get("operation");
+  if (op && (operations as readonly string[]).includes(op)) initial.operation = op as Operation;
+  const mm = (key: string, field: "axialDepth" | "radialDepth" | "workX" | "workY" | "chipLoadOverride") => {
+    const v = Number(search.get(key));
+    if (search.get(key) !== null && Number.isFinite(v) && v >= 0) initial[field] = lengthInputText(v, system);
+  };
+  mm("ap", "axialDepth");
+  mm("ae", "radialDepth");
+  mm("x", "workX");
+  mm("y", "workY");
+  mm("fz", "chipLoadOverride");
+  const rpm = Number(search.get("rpm"));
+  if (search.get("rpm") !== null && Number.isFinite(rpm) && rpm > 0) initial.rpmOverride = String(Math.round(rpm));
+  const dir = search.get("dir");
+  if (dir === "climb" || dir === "conventional") initial.millingDirection = dir;
+  return initial;
+}
 
 export function PlannerRoute() {
-  return <AreaPlaceholder area="planner" />;
+  useDocumentTitle("Planner");
+  const shop = useActiveShop();
+  const system = useUnitSystem();
+  const [search] = useSearchParams();
+  // Read once: later edits live in the form, not the address.
+  // eslint-disable-next-line react-hooks/exhaustive-deps
+  const initial = useMemo(() => initialFromSearch(search, system), []);
+
+  return (
+    <div className="mx-auto flex max-w-7xl flex-col gap-6">
+      <header>
+        <h1 className="text-xl font-semibold text-ink">Planner</h1>
+        <p className="mt-1 text-sm text-muted">Work out a starting recipe for one cutter, material and machine; every number updates as you type.</p>
+      </header>
+      {shop ? (
+        <Planner
+          key={shop.shopId}
+          shopId={shop.shopId}
+          role={shop.role}
+          system={system}
+          initial={initial}
+          evidence={({ machineId, materialId, rec }) => (
+            <MachineMaterialEvidence
+              shopId={shop.shopId}
+              machineId={machineId}
+              materialId={materialId}
+              system={system}
+              predicted={rec ? { rpm: rec.rpm, feedMmPerMin: rec.feedMmPerMin } : undefined}
+            />
+          )}
+        />
+      ) : (
+        <Card>
+          <EmptyState title="No shop selected">
+            <p>Create a shop or ask to be added to one to plan cuts.</p>
+          </EmptyState>
+        </Card>
+      )}
+    </div>
+  );
 }

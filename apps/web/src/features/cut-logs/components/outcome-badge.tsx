@@ -1,0 +1,18 @@
+import type { CutOutcome } from "@ringdown/contracts";
+import { cn } from "@/lib/cn";
+import { OUTCOMES } from "../outcomes";
+
+const toneClass = {
+  good: "border-ok/40 bg-ok/10 text-ok",
+  neutral: "border-rule-strong/50 bg-paper text-ink",
+  bad: "border-limit/40 bg-limit/10 text-limit",
+} as const;
+
+export function OutcomeBadge({ outcome, className }: { outcome: CutOutcome; className?: string }) {
+  const o = OUTCOMES[outcome];
+  return (
+    <span className={cn("inline-flex items-center rounded-full border px-2 py-0.5 text-xs font-medium whitespace-nowrap", toneClass[o.tone], className)}>
+      {o.label}
+    </span>
+  );
+}
