@@ -1,6 +1,5 @@
 import FFT from "fft.js";
 import { requirePositive } from "../internal/require.js";
-import { hannWindow } from "./hann-window.js";
 import { parabolicPeak } from "./parabolic-peak.js";
 
 /** Frequency and damping of a free decay (tap test). */
@@ -26,15 +25,16 @@ export interface RingDownAnalysis {
 /**
  * Dominant frequency and damping of a ring-down (the free vibration after a tap).
  *
- * 1. Frequency: Hann-windowed FFT of the whole record, zero-padded (≥ 8× length, ≤ 2^22 points),
- *    parabolic interpolation of the highest peak's log magnitude.
+ * 1. Frequency: FFT of the whole record (mean removed, no window: the decay is its own window),
+ *    zero-padded (≥ 8× length, ≤ 2^22 points), parabolic interpolation of the highest peak's log magnitude.
  * 2. Decay: the cycle peaks (local maxima at least 0.6 period apart) and the trough that follows
  *    each; amplitude A_i = (peak − trough)/2 is insensitive to a constant offset. ln A_i is fitted
  *    by least squares against the peak times from the largest peak on, while A_i stays above
  *    `minRelativeAmplitude` of the largest: slope −σ.
- * 3. Log decrement δ = σ · Td (Td from the peak spacing), ζ = δ / √(4π² + δ²) (= σ / √(σ² + ωd²)).
- * With `bandHz` the record is first band-pass filtered (FFT, bins outside the band set to zero) to
- * isolate one mode; without it the decay of several close modes beats and the fit quality drops.
+ * 3. Log decrement δ = σ · Td, ζ = δ / √(4π² + δ²) (= σ / √(σ² + ωd²)); Td from the least-squares
+ *    peak spacing when a cycle spans ≥ 20 samples, else from the spectrum frequency.
+ * With `bandHz` the record is first band-pass filtered (zero-phase, in the frequency domain, with
+ * raised-cosine edges a quarter of the band wide) to isolate one mode; without it the decay of several close modes beats and the fit quality drops.
  *
  * Assumes viscous (exponential) damping of one dominant mode.
  *
@@ -80,18 +80,23 @@ export function analyzeRingDown(input: {
     requirePositive(fn, "bandHz.minHz", minHz);
     requirePositive(fn, "bandHz.maxHz", maxHz);
     if (!(maxHz > minHz && maxHz < sampleRateHz / 2)) throw new RangeError(`${fn} requires bandHz.minHz < bandHz.maxHz < sampleRateHz / 2`);
-    // Zero-phase band-pass: keep the positive-frequency bins inside the band (and their mirror).
+    // Zero-phase band-pass: bins inside the band pass, a raised-cosine taper a quarter of the band
+    // wide on each side (a brick wall would ring for the whole record), zero beyond.
     const padded = new Float64Array(size);
-    padded.set(x.subarray(0, Math.min(n, size)));
+    padded.set(x);
     fft.realTransform(spectrum, padded);
     fft.completeSpectrum(spectrum);
     const df = sampleRateHz / size;
+    const taper = 0.25 * (maxHz - minHz);
+    const gain = (f: number): number => {
+      if (f >= minHz && f <= maxHz) return 1;
+      const d = f < minHz ? minHz - f : f - maxHz;
+      return d >= taper ? 0 : 0.5 * (1 + Math.cos((Math.PI * d) / taper));
+    };
     for (let k = 0; k < size; k++) {
-      const f = (k <= size / 2 ? k : size - k) * df;
-      if (f < minHz || f > maxHz) {
-        spectrum[2 * k] = 0;
-        spectrum[2 * k + 1] = 0;
-      }
+      const g = gain((k <= size / 2 ? k : size - k) * df);
+      spectrum[2 * k]! *= g;
+      spectrum[2 * k + 1]! *= g;
     }
     const back = fft.createComplexArray() as number[];
     fft.inverseTransform(back, spectrum);
@@ -99,13 +104,13 @@ export function analyzeRingDown(input: {
     for (let i = 0; i < n; i++) signal[i] = back[2 * i]!;
   }
 
-  // 1. Dominant frequency from the zero-padded Hann spectrum.
-  const w = hannWindow({ size: n });
+  // 1. Dominant frequency from the zero-padded spectrum. No window: the decay is its own window
+  // (a Hann window would weight the quiet end of the record and hide a quickly decaying mode).
   const buf = new Float64Array(size);
   let mean = 0;
   for (let i = 0; i < n; i++) mean += signal[i]!;
   mean /= n;
-  for (let i = 0; i < n; i++) buf[i] = (signal[i]! - mean) * w[i]!;
+  for (let i = 0; i < n; i++) buf[i] = signal[i]! - mean;
   fft.realTransform(spectrum, buf);
   const half = size / 2;
   const mag = new Float64Array(half + 1);
@@ -152,6 +157,8 @@ export function analyzeRingDown(input: {
   }
   let start = 0;
   for (let j = 1; j < amps.length; j++) if (amps[j]! > amps[start]!) start = j;
+  // After band-pass filtering the first cycle still carries the filter's transient: skip it.
+  if (input.bandHz && start + 4 < amps.length) start += 1;
   const threshold = amps[start]! * minRel;
   let end = start;
   while (end + 1 < amps.length && amps[end + 1]! > threshold) end++;
@@ -159,34 +166,46 @@ export function analyzeRingDown(input: {
   if (count < 3) {
     throw new RangeError(`${fn} requires at least 3 decaying cycles above ${minRel} of the largest one`);
   }
-  // 3. Least-squares line through ln(A) against t.
+  // 3. Least-squares lines: ln(A) against t (slope −σ) and peak time against cycle index (period).
   let st = 0;
   let sy = 0;
+  let sj = 0;
   for (let j = start; j <= end; j++) {
     st += times[j]!;
     sy += Math.log(amps[j]!);
+    sj += j;
   }
   const tMean = st / count;
   const yMean = sy / count;
+  const jMean = sj / count;
   let stt = 0;
   let sty = 0;
   let syy = 0;
+  let sjj = 0;
+  let sjt = 0;
   for (let j = start; j <= end; j++) {
     const dt = times[j]! - tMean;
     const dy = Math.log(amps[j]!) - yMean;
+    const dj = j - jMean;
     stt += dt * dt;
     sty += dt * dy;
     syy += dy * dy;
+    sjj += dj * dj;
+    sjt += dj * dt;
   }
   const slope = sty / stt;
   const sigma = -slope;
   if (!(sigma > 0)) throw new RangeError(`${fn} requires a decaying signal (the cycle amplitudes do not decrease)`);
   const fitQuality = syy > 0 ? (sty * sty) / (stt * syy) : 1;
-  const spacing = (times[end]! - times[start]!) / (count - 1);
+  const spacing = sjt / sjj;
   const frequencyFromPeakSpacingHz = 1 / spacing;
-  const logDecrement = sigma * spacing;
+  // Peak times are precise only with many samples per cycle; otherwise the spectrum frequency
+  // (whole record, zero-padded) is the better period.
+  const samplesPerCycle = sampleRateHz / frequencyHz;
+  const fd = samplesPerCycle >= 20 ? frequencyFromPeakSpacingHz : frequencyHz;
+  const logDecrement = sigma / fd;
   const dampingRatio = logDecrement / Math.sqrt(4 * Math.PI * Math.PI + logDecrement * logDecrement);
-  const naturalFrequencyHz = frequencyFromPeakSpacingHz / Math.sqrt(1 - dampingRatio * dampingRatio);
+  const naturalFrequencyHz = fd / Math.sqrt(1 - dampingRatio * dampingRatio);
   if (fitQuality < 0.98) {
     notes.push("The decay is not a clean exponential (beating of close modes or noise); isolate one mode with a frequency band.");
   }
