@@ -51,9 +51,17 @@ export const recipeBodySchema = z.object({
 });
 export type RecipeBody = z.infer<typeof recipeBodySchema>;
 
-export const recipeUpdateBodySchema = recipeBodySchema.partial().extend({
+/** PATCH: only the fields sent change (no defaults fill in missing ones); `params`, when sent, is the whole set. */
+export const recipeUpdateBodySchema = z.object({
+  name: text(160).min(1, "Name the recipe").optional(),
+  assemblyId: uuid.optional(),
+  materialId: uuid.optional(),
+  operation: operationSchema.optional(),
+  params: recipeParamsSchema.optional(),
+  notes: text(4000).optional(),
   changeNote: text(500).default(""),
 });
+export type RecipeUpdateBody = z.infer<typeof recipeUpdateBodySchema>;
 
 export const recipeSchema = z.object({
   id: uuid,

@@ -35,6 +35,10 @@ export interface AppConfig {
   appOrigin: string;
   /** Express "trust proxy" hop count: 0 when the API faces clients directly. */
   trustProxy: number;
+  /** Absolute path of the directory holding uploaded files (cut-log photos). */
+  storageDir: string;
+  /** Largest accepted photo upload [bytes]. */
+  photoMaxBytes: number;
   rateLimits: {
     /** Failed sign-in attempts per client IP. */
     loginPerIp: RateLimitRule;
@@ -63,6 +67,8 @@ const envSchema = z
     SEED_DEMO: z.stringbool().default(false),
     APP_URL: z.url({ protocol: /^https?$/ }).optional(),
     TRUST_PROXY: z.coerce.number<string>().int().min(0).max(10).default(0),
+    STORAGE_DIR: z.string().trim().min(1).default(".data/storage"),
+    PHOTO_MAX_MB: z.coerce.number<string>().positive().max(50).default(8),
     LOGIN_MAX_PER_IP: positiveInt(30),
     LOGIN_MAX_PER_ACCOUNT: positiveInt(10),
     SIGNUP_MAX_PER_IP: positiveInt(20),
@@ -106,6 +112,8 @@ export function parseConfig(env: Record<string, string | undefined>): AppConfig 
     seedDemo: e.SEED_DEMO,
     appOrigin: new URL(e.APP_URL ?? `http://localhost:${e.PORT}`).origin,
     trustProxy: e.TRUST_PROXY,
+    storageDir: path.resolve(repoRoot, e.STORAGE_DIR),
+    photoMaxBytes: Math.round(e.PHOTO_MAX_MB * 1024 * 1024),
     rateLimits: {
       loginPerIp: { limit: e.LOGIN_MAX_PER_IP, windowMs: minutes(15) },
       loginPerAccount: { limit: e.LOGIN_MAX_PER_ACCOUNT, windowMs: minutes(15) },
