@@ -1,5 +1,5 @@
-import { AreaPlaceholder } from "@/features/shell/components/area-placeholder";
+import { MaterialsPage } from "@/features/materials/components/materials-page";
 
 export function MaterialsRoute() {
-  return <AreaPlaceholder area="materials" />;
+  return <MaterialsPage />;
 }
