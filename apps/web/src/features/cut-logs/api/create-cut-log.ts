@@ -10,14 +10,12 @@ export interface NewCutLog {
   photos: File[];
 }
 
-/** Logs one cut against a recipe; with photos the body goes as multipart (fields + `photos`). */
+/** Logs one cut against a recipe; with photos it goes as multipart: the body as JSON text in `data`, files in `photos`. */
 export function createCutLog(shopId: string, { recipeId, body, photos }: NewCutLog) {
   const path = shopApiPath(shopId, `/recipes/${encodeURIComponent(recipeId)}/cut-logs`);
   if (photos.length === 0) return apiRequest(path, { method: "POST", body, schema: cutLogSchema });
   const form = new FormData();
-  for (const [key, value] of Object.entries(body)) {
-    if (value !== null && value !== undefined) form.set(key, String(value));
-  }
+  form.set("data", JSON.stringify(body));
   for (const photo of photos) form.append("photos", photo, photo.name);
   return apiRequest(path, { method: "POST", body: form, schema: cutLogSchema });
 }

@@ -1,9 +1,7 @@
-import { cutLogSchema, pageOf } from "@ringdown/contracts";
+import { cutLogPageSchema } from "@ringdown/contracts";
 import { queryOptions, useQuery } from "@tanstack/react-query";
 import { shopApiPath, toSearch } from "@/lib/active-shop";
 import { apiRequest } from "@/lib/api-client";
-
-export const cutLogPageSchema = pageOf(cutLogSchema);
 
 /** Cuts logged on one machine in one material, across every recipe (newest first). */
 export function getCutLogs(shopId: string, machineId: string, materialId: string, signal?: AbortSignal) {

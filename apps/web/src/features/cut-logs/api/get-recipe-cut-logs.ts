@@ -1,7 +1,7 @@
+import { cutLogPageSchema } from "@ringdown/contracts";
 import { queryOptions, useQuery } from "@tanstack/react-query";
 import { shopApiPath, toSearch } from "@/lib/active-shop";
 import { apiRequest } from "@/lib/api-client";
-import { cutLogPageSchema } from "./get-cut-logs";
 
 /** The cuts logged against one recipe (newest first). */
 export function getRecipeCutLogs(shopId: string, recipeId: string, signal?: AbortSignal) {

@@ -1,0 +1,17 @@
+import { useMutation, useQueryClient } from "@tanstack/react-query";
+import { shopApiPath } from "@/lib/active-shop";
+import { apiRequest } from "@/lib/api-client";
+import { recipesRoot } from "./keys";
+
+/** Moves a recipe to the shop's bin (it can be restored from there). */
+export function deleteRecipe(shopId: string, recipeId: string) {
+  return apiRequest(shopApiPath(shopId, `/recipes/${encodeURIComponent(recipeId)}`), { method: "DELETE" });
+}
+
+export function useDeleteRecipe(shopId: string, recipeId: string) {
+  const queryClient = useQueryClient();
+  return useMutation({
+    mutationFn: () => deleteRecipe(shopId, recipeId),
+    onSuccess: () => queryClient.invalidateQueries({ queryKey: recipesRoot(shopId) }),
+  });
+}

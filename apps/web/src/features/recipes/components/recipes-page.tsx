@@ -1,0 +1,321 @@
+import {
+  operations,
+  operationSchema,
+  recipeSortFields,
+  recipeStatuses,
+  recipeStatusSchema,
+  type Recipe,
+  type Role,
+  type UnitSystem,
+} from "@ringdown/contracts";
+import type { ColumnDef, PaginationState, SortingState, Updater } from "@tanstack/react-table";
+import { ClipboardList, RefreshCw, Search } from "lucide-react";
+import { useCallback, useEffect, useId, useMemo, useState } from "react";
+import { Link, useSearchParams } from "react-router-dom";
+import { Badge } from "@/components/ui/badge";
+import { DataTable } from "@/components/ui/data-table";
+import { EmptyState } from "@/components/ui/empty-state";
+import { Input } from "@/components/ui/field";
+import { MeasureValue } from "@/components/ui/measure";
+import { Select, type SelectOption } from "@/components/ui/select";
+import { measures } from "@/components/ui/units";
+import { useRecipes, type RecipeListParams } from "../api/get-recipes";
+import { operationLabels, statusLabels } from "../labels";
+import { RecipeStatusBadge } from "./status-badge";
+
+type SortKey = (typeof recipeSortFields)[number];
+const sortable = new Set<string>(recipeSortFields);
+const uuidLike = /^[0-9a-f-]{36}$/i;
+const PAGE_SIZES = [10, 25, 50, 100];
+
+export interface RecipeFilterOptions {
+  machines: SelectOption[];
+  materials: SelectOption[];
+  cutters: SelectOption[];
+}
+
+interface Filters {
+  q: string;
+  machineId: string;
+  materialId: string;
+  cutterId: string;
+  operation: string;
+  status: string;
+}
+
+/** Filters, sort and page live in the address: a view can be bookmarked, shared and gone back to. */
+function useRecipeListState() {
+  const [search, setSearch] = useSearchParams();
+  const id = (key: string) => {
+    const v = search.get(key);
+    return v && uuidLike.test(v) ? v : "";
+  };
+  const operation = operationSchema.safeParse(search.get("operation"));
+  const status = recipeStatusSchema.safeParse(search.get("status"));
+  const sortParam = search.get("sort");
+  const sort: SortKey = sortParam && sortable.has(sortParam) ? (sortParam as SortKey) : "updatedAt";
+  const order = search.get("order") === "asc" ? "asc" : search.get("order") === "desc" ? "desc" : sort === "updatedAt" ? "desc" : "asc";
+  const page = Math.max(1, Number.parseInt(search.get("page") ?? "1", 10) || 1);
+  const pageSize = PAGE_SIZES.includes(Number(search.get("pageSize"))) ? Number(search.get("pageSize")) : 25;
+
+  const filters: Filters = {
+    q: search.get("q") ?? "",
+    machineId: id("machineId"),
+    materialId: id("materialId"),
+    cutterId: id("cutterId"),
+    operation: operation.success ? operation.data : "",
+    status: status.success ? status.data : "",
+  };
+
+  const update = useCallback(
+    (changes: Record<string, string | number | undefined>, resetPage = true) => {
+      setSearch(
+        (prev) => {
+          const next = new URLSearchParams(prev);
+          for (const [key, value] of Object.entries(changes)) {
+            if (value === undefined || value === "") next.delete(key);
+            else next.set(key, String(value));
+          }
+          if (resetPage) next.delete("page");
+          return next;
+        },
+        { replace: true },
+      );
+    },
+    [setSearch],
+  );
+
+  const params: RecipeListParams = {
+    page,
+    pageSize,
+    sort,
+    order,
+    ...(filters.q.trim() ? { q: filters.q.trim() } : {}),
+    ...(filters.machineId ? { machineId: filters.machineId } : {}),
+    ...(filters.materialId ? { materialId: filters.materialId } : {}),
+    ...(filters.cutterId ? { cutterId: filters.cutterId } : {}),
+    ...(operation.success ? { operation: operation.data } : {}),
+    ...(status.success ? { status: status.data } : {}),
+  };
+  return { filters, params, update, sorting: [{ id: sort, desc: order === "desc" }] as SortingState };
+}
+
+function apply<T>(updater: Updater<T>, old: T): T {
+  return typeof updater === "function" ? (updater as (o: T) => T)(old) : updater;
+}
+
+const dateFormat = new Intl.DateTimeFormat("en-GB", { day: "numeric", month: "short", year: "numeric" });
+
+/**
+ * The shop's recipes: a server-side table (filters, sort and page are the server's work, so it
+ * stays quick with thousands of recipes). Operators see approved recipes only.
+ */
+export function RecipesPage({ shopId, role, system, options }: { shopId: string; role: Role; system: UnitSystem; options: RecipeFilterOptions }) {
+  const { filters, params, update, sorting } = useRecipeListState();
+  const list = useRecipes(shopId, params);
+  const operator = role === "operator";
+
+  const columns = useMemo<Array<ColumnDef<Recipe, unknown>>>(
+    () => [
+      {
+        id: "name",
+        header: "Recipe",
+        accessorKey: "name",
+        cell: ({ row }) => {
+          const r = row.original;
+          return (
+            <div className="min-w-52">
+              {/* The link covers the whole row (the row is positioned), so a click anywhere opens it. */}
+              <Link
+                to={`/recipes/${r.id}`}
+                className="font-medium text-ink after:absolute after:inset-0 after:content-[''] hover:text-brand hover:underline focus-visible:outline-none focus-visible:after:outline-2 focus-visible:after:outline-brand"
+              >
+                {r.name}
+              </Link>
+              <div className="mt-0.5 flex flex-wrap items-center gap-1.5 text-xs text-muted">
+                <span>{operationLabels[r.operation]}</span>
+                <span aria-hidden>·</span>
+                <span>rev. {r.revision}</span>
+                {r.needsRecheck && (
+                  <Badge tone="near" title="The machine, cutter, assembly or material changed since this recipe was computed">
+                    <RefreshCw className="size-3" aria-hidden />
+                    Needs recheck
+                  </Badge>
+                )}
+              </div>
+            </div>
+          );
+        },
+      },
+      { id: "status", header: "Status", accessorKey: "status", cell: ({ row }) => <RecipeStatusBadge status={row.original.status} /> },
+      { id: "machineName", header: "Machine", accessorKey: "machineName" },
+      { id: "cutterName", header: "Cutter", accessorKey: "cutterName" },
+      { id: "materialName", header: "Material", accessorKey: "materialName" },
+      {
+        id: "rpm",
+        header: "Spindle speed",
+        accessorFn: (r) => r.result.rpm,
+        meta: { numeric: true },
+        cell: ({ row }) => <MeasureValue value={Math.round(row.original.result.rpm)} measure={measures.rpm} system={system} />,
+      },
+      {
+        id: "feedMmPerMin",
+        header: "Feed",
+        accessorFn: (r) => r.result.feedMmPerMin,
+        meta: { numeric: true },
+        cell: ({ row }) => <MeasureValue value={row.original.result.feedMmPerMin} measure={measures.feedRate} system={system} />,
+      },
+      {
+        id: "chipLoad",
+        header: "Chip load",
+        accessorFn: (r) => r.result.chipLoadMm,
+        enableSorting: false,
+        meta: { numeric: true },
+        cell: ({ row }) => <MeasureValue value={row.original.result.chipLoadMm} measure={measures.chipLoad} system={system} />,
+      },
+      {
+        id: "cutLogCount",
+        header: "Cuts logged",
+        accessorKey: "cutLogCount",
+        enableSorting: false,
+        meta: { numeric: true },
+      },
+      {
+        id: "updatedAt",
+        header: "Updated",
+        accessorKey: "updatedAt",
+        meta: { numeric: true },
+        cell: ({ row }) => <time dateTime={row.original.updatedAt}>{dateFormat.format(new Date(row.original.updatedAt))}</time>,
+      },
+    ],
+    [system],
+  );
+
+  const pagination: PaginationState = { pageIndex: params.page - 1, pageSize: params.pageSize };
+  const filtered = Boolean(filters.q || filters.machineId || filters.materialId || filters.cutterId || filters.operation || filters.status);
+
+  return (
+    <div className="flex flex-col gap-4">
+      <RecipeFilters value={filters} onChange={(changes) => update({ ...changes })} options={options} operator={operator} />
+      <DataTable
+        label="Recipes"
+        columns={columns}
+        data={list.data?.items}
+        getRowId={(r) => r.id}
+        isLoading={list.isPending}
+        isFetching={list.isFetching && !list.isPending}
+        error={list.isError ? list.error : null}
+        onRetry={() => void list.refetch()}
+        rowClassName={(r) => (r.status === "retired" ? "relative text-muted" : "relative")}
+        server={{
+          rowCount: list.data?.total ?? 0,
+          sorting,
+          onSortingChange: (updater) => {
+            const next = apply(updater, sorting)[0];
+            update(next ? { sort: next.id, order: next.desc ? "desc" : "asc" } : { sort: undefined, order: undefined });
+          },
+          pagination,
+          onPaginationChange: (updater) => {
+            const next = apply(updater, pagination);
+            update({ page: next.pageIndex + 1 === 1 ? undefined : next.pageIndex + 1, pageSize: next.pageSize === 25 ? undefined : next.pageSize }, false);
+          },
+        }}
+        empty={
+          filtered ? (
+            <EmptyState icon={Search} title="No recipe matches these filters">
+              <p>Clear a filter or search for something shorter.</p>
+            </EmptyState>
+          ) : (
+            <EmptyState
+              icon={ClipboardList}
+              title={operator ? "No approved recipes yet" : "No recipes yet"}
+              action={
+                operator ? undefined : (
+                  <Link to="/planner" className="inline-flex h-10 items-center rounded-md bg-brand px-4 text-sm font-medium text-white hover:bg-brand-strong">
+                    Plan a cut
+                  </Link>
+                )
+              }
+            >
+              <p>
+                {operator
+                  ? "Recipes appear here once a tooling manager approves them."
+                  : "Plan a cut in the planner and save it: it starts as a draft, goes on trial, is proven with logged cuts and then approved."}
+              </p>
+            </EmptyState>
+          )
+        }
+      />
+    </div>
+  );
+}
+
+function RecipeFilters({
+  value,
+  onChange,
+  options,
+  operator,
+}: {
+  value: Filters;
+  onChange: (changes: Partial<Filters>) => void;
+  options: RecipeFilterOptions;
+  operator: boolean;
+}) {
+  const id = useId();
+  const [text, setText] = useState(value.q);
+  useEffect(() => setText(value.q), [value.q]);
+  useEffect(() => {
+    if (text === value.q) return;
+    // Wait for a pause in typing before asking the server.
+    const timer = setTimeout(() => onChange({ q: text }), 300);
+    return () => clearTimeout(timer);
+  }, [text, value.q, onChange]);
+
+  const select = (key: keyof Filters, label: string, opts: readonly SelectOption[], any: string, width = "w-48") => (
+    <div className={`flex ${width} flex-col gap-1.5`}>
+      <label htmlFor={`${id}-${key}`} className="text-xs font-medium text-muted">
+        {label}
+      </label>
+      <Select id={`${id}-${key}`} value={value[key]} onChange={(e) => onChange({ [key]: e.target.value })} options={opts} placeholder={any} />
+    </div>
+  );
+
+  return (
+    <div role="search" aria-label="Filter recipes" className="flex flex-wrap items-end gap-3">
+      <div className="flex min-w-56 flex-1 flex-col gap-1.5">
+        <label htmlFor={`${id}-q`} className="text-xs font-medium text-muted">
+          Search
+        </label>
+        <div className="relative">
+          <Search aria-hidden className="pointer-events-none absolute top-1/2 left-3 size-4 -translate-y-1/2 text-muted" />
+          <Input
+            id={`${id}-q`}
+            type="search"
+            value={text}
+            onChange={(event) => setText(event.target.value)}
+            placeholder="Name, notes, cutter, material, machine…"
+            className="pl-9"
+          />
+        </div>
+      </div>
+      {select("machineId", "Machine", options.machines, "Any machine")}
+      {select("materialId", "Material", options.materials, "Any material")}
+      {select("cutterId", "Cutter", options.cutters, "Any cutter")}
+      {select(
+        "operation",
+        "Operation",
+        operations.map((o) => ({ value: o, label: operationLabels[o] })),
+        "Any operation",
+        "w-44",
+      )}
+      {!operator &&
+        select(
+          "status",
+          "Status",
+          recipeStatuses.map((s) => ({ value: s, label: statusLabels[s] })),
+          "Any status",
+          "w-36",
+        )}
+    </div>
+  );
+}

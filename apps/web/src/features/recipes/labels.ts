@@ -1,0 +1,32 @@
+import type { Operation, RecipeStatus, Role } from "@ringdown/contracts";
+import type { BadgeTone } from "@/components/ui/badge";
+
+export const statusLabels: Record<RecipeStatus, string> = {
+  draft: "Draft",
+  trial: "On trial",
+  proven: "Proven",
+  approved: "Approved",
+  retired: "Retired",
+};
+
+/** Colour only where it says something: approved is the good state, proven rests on measured cuts. */
+export const statusTones: Record<RecipeStatus, BadgeTone> = {
+  draft: "neutral",
+  trial: "brand",
+  proven: "measured",
+  approved: "ok",
+  retired: "neutral",
+};
+
+export const operationLabels: Record<Operation, string> = {
+  slot: "Slot",
+  profile: "Profile",
+  adaptive: "Constant-engagement clearing",
+  pocket: "Pocket",
+  finish: "Finish pass",
+  drill: "Drill",
+  ramp: "Ramp entry",
+};
+
+const rank: Record<Role, number> = { operator: 0, programmer: 1, tooling_manager: 2, owner: 3 };
+export const atLeast = (role: Role, least: Role) => rank[role] >= rank[least];
