@@ -35,8 +35,8 @@ export default defineConfig({
   forbidOnly: Boolean(process.env.CI),
   retries: 0,
   // Generous: CI runners share two cores between the server, PostgreSQL and two browsers.
-  timeout: 60_000,
-  expect: { timeout: 10_000 },
+  timeout: 90_000,
+  expect: { timeout: 15_000 },
   reporter: process.env.CI ? [["list"], ["json"]] : [["list"]],
   use: {
     baseURL,
