@@ -577,13 +577,46 @@ export function recommend(input: RecommendInput): Recommendation {
     }
   }
 
-  // ---- 2. Chip -------------------------------------------------------------------------------
+  // ---- 2. Chip, and the ceiling that does not depend on speed (deflection) ------------------
   const axialFactor0 = effectiveDiameter(ctx, ctx.apRequested).axialFactor;
   const fz0 = ctx.fzNominal / (ctx.sinFactor * axialFactor0);
   const ap0 = ctx.apRequested;
-  const kt0 = evaluate(ctx, n0, fz0, ap0).kt;
+  let fz = fz0;
+  let ap = ap0;
+  // Lowest chip load the power and deflection reductions may reach: half the nominal (Ringdown
+  // default), and never so low that the least-loaded flute (runout) would rub.
+  const runoutShare = ctx.tir * Math.sin(Math.PI / z);
+  const floorFz = Math.min(fz0, Math.max(RECOMMEND_DEFAULTS.chipFloorFraction * fz0, (1.1 * ctx.minChip) / (ctx.sinFactor * axialFactor0) + runoutShare));
+  let ev = evaluate(ctx, n0, fz, ap);
+  const reduceFor = (rpmAt: number, id: LimitId, label: string, measure: (e: CutEval) => number, ceiling: number, withForce: boolean): void => {
+    const now = measure(ev);
+    if (now <= ceiling) return;
+    binding.add(id);
+    const fzBefore = fz;
+    const apBefore = ap;
+    const lowest = Math.min(floorFz, fz);
+    const x = largestFeasible((v) => measure(evaluate(ctx, rpmAt, v, ap, withForce)), ceiling, lowest, fz, now);
+    if (x !== null) {
+      fz = x;
+      adjustments.push(`Feed per tooth reduced from ${fmt(fzBefore)} to ${fmt(fz)} mm to respect the ${label}.`);
+    } else {
+      fz = lowest;
+      const y = largestFeasible((v) => measure(evaluate(ctx, rpmAt, fz, v, withForce)), ceiling, 1e-6 * ap0, ap, measure(evaluate(ctx, rpmAt, fz, ap, withForce)));
+      ap = y ?? 1e-6 * ap0;
+      adjustments.push(
+        (fz < fzBefore ? `Feed per tooth reduced from ${fmt(fzBefore)} to ${fmt(fz)} mm (the lowest this recipe allows) and a` : "A") +
+          `xial depth reduced from ${fmt(apBefore)} to ${fmt(ap)} mm to respect the ${label}; take more, shallower passes.`,
+      );
+    }
+    ev = evaluate(ctx, rpmAt, fz, ap);
+  };
+  // Force, and so deflection, does not depend on speed: settle it before choosing the speed.
+  if (!rule.axial) {
+    reduceFor(n0, "deflection", `deflection ceiling (${fmt(ctx.deflectionCeiling)} mm)`, (e) => e.totalDefl, ctx.deflectionCeiling, true);
+  }
+  const kt1 = ev.kt;
 
-  // ---- 1b. Speed choice against resonance, avoided bands, stability, feed and power -----------
+  // ---- 3. Speed choice against resonance, avoided bands, stability, feed, power and speed range
   const stab = buildStability(ctx, Math.min(rpmLo, ...(dialCandidates ?? []).map((dl) => dl.rpm)), rpmHi);
   const forbidden = forbiddenIntervals(ctx);
   const sf = ctx.safetyFactor;
@@ -598,7 +631,8 @@ export function recommend(input: RecommendInput): Recommendation {
     aLim: number | null;
   }
   const vcAt = (n: number): number => (Math.PI * deffNominal * n) / 1000;
-  const flagsFor = (n: number, aLim: number | null | undefined): Flags => {
+  const mrrAt = (n: number): number => (rule.axial ? ((Math.PI * ctx.d * ctx.d) / 4) * fz * z * n : ap * ctx.ae * fz * z * n);
+  const cheapFlags = (n: number): { resonance: boolean; band: boolean; feed: boolean; power: boolean; vc: boolean } => {
     let resonance = true;
     let band = true;
     for (const f of forbidden) {
@@ -607,48 +641,45 @@ export function recommend(input: RecommendInput): Recommendation {
         else band = false;
       }
     }
-    const lim = aLim === undefined ? (stab ? (limitAt(stab, ctx, n, kt0, false)?.depth ?? null) : null) : aLim;
     const vc = vcAt(n);
-    const mrr = rule.axial ? ((Math.PI * ctx.d * ctx.d) / 4) * fz0 * z * n : ap0 * ctx.ae * fz0 * z * n;
     return {
-      rpm: n,
       resonance,
       band,
-      feed: fz0 * z * n <= ctx.feedCeiling * (1 + 1e-12),
-      power: (kt0 * mrr) / 60000 <= ctx.powerAt(n) * (1 + 1e-12),
+      feed: fz * z * n <= ctx.feedCeiling * (1 + 1e-12),
+      power: (kt1 * mrrAt(n)) / 60000 <= ctx.powerAt(n) * (1 + 1e-12),
       vc: vc >= ctx.vcMin * (1 - 1e-9) && vc <= ctx.vcMax * (1 + 1e-9),
-      stable: lim === null || ap0 <= sf * lim,
-      aLim: lim,
     };
+  };
+  const flagsFor = (n: number, aLim: number | null | undefined): Flags => {
+    const c = cheapFlags(n);
+    const lim = aLim === undefined ? (stab ? (limitAt(stab, ctx, n, kt1, false)?.depth ?? null) : null) : aLim;
+    return { rpm: n, ...c, stable: lim === null || ap <= sf * lim, aLim: lim };
   };
   const allOk = (f: Flags): boolean => f.resonance && f.band && f.feed && f.power && f.vc && f.stable;
   const dist = (n: number): number => Math.abs(Math.log(n / n0));
 
   let chosen: Flags;
   let dial: DialSpeed | null = null;
-  const cheapOk = (n: number): boolean => {
-    for (const f of forbidden) if (n > f.lo && n < f.hi) return false;
-    const mrr = rule.axial ? ((Math.PI * ctx.d * ctx.d) / 4) * fz0 * z * n : ap0 * ctx.ae * fz0 * z * n;
-    const vc = vcAt(n);
-    return (
-      fz0 * z * n <= ctx.feedCeiling * (1 + 1e-12) &&
-      (kt0 * mrr) / 60000 <= ctx.powerAt(n) * (1 + 1e-12) &&
-      vc >= ctx.vcMin * (1 - 1e-9) &&
-      vc <= ctx.vcMax * (1 + 1e-9)
-    );
-  };
   const startFlags = dialCandidates ? null : flagsFor(n0, undefined);
   // Nearest speed meeting every limit, found cheaply first: the cheap checks (modes, bands, feed,
   // power, speed range) on candidate speeds in order of distance, the stability check only on
   // those that pass them.
   let quick: Flags | null = startFlags && allOk(startFlags) ? startFlags : null;
   if (!quick) {
-    const pool: number[] = dialCandidates ? dialCandidates.map((dl) => dl.rpm) : [n0, ctx.feedCeiling / (fz0 * z), (1000 * ctx.vcMin) / (Math.PI * deffNominal), (1000 * ctx.vcMax) / (Math.PI * deffNominal)];
+    const pool: number[] = dialCandidates
+      ? dialCandidates.map((dl) => dl.rpm)
+      : [n0, ctx.feedCeiling / (fz * z), (1000 * ctx.vcMin) / (Math.PI * deffNominal), (1000 * ctx.vcMax) / (Math.PI * deffNominal)];
     if (!dialCandidates) {
       for (const f of forbidden) pool.push(f.lo * (1 - 1e-6), f.hi * (1 + 1e-6));
       for (let j = 0; j < 64; j++) pool.push(rpmLo * Math.pow(rpmHi / rpmLo, j / 63));
     }
-    const inRange = pool.filter((n) => n >= rpmLo * (1 - 1e-9) && n <= rpmHi * (1 + 1e-9) && cheapOk(n)).sort((a, b) => dist(a) - dist(b));
+    const inRange = pool
+      .filter((n) => {
+        if (!(n >= rpmLo * (1 - 1e-9) && n <= rpmHi * (1 + 1e-9))) return false;
+        const c = cheapFlags(n);
+        return c.resonance && c.band && c.feed && c.power && c.vc;
+      })
+      .sort((a, b) => dist(a) - dist(b));
     for (const n of inRange.slice(0, 12)) {
       const f = flagsFor(n, undefined);
       if (allOk(f)) {
@@ -674,33 +705,36 @@ export function recommend(input: RecommendInput): Recommendation {
           let lim: number | null = null;
           for (const env of envs) {
             const v = env.limitingDepthMm[j]!;
-            if (Number.isFinite(v) && (lim === null || v / kt0 < lim)) lim = v / kt0;
+            if (Number.isFinite(v) && (lim === null || v / kt1 < lim)) lim = v / kt1;
           }
           candidates.push(flagsFor(envs[0]!.rpm[j]!, lim));
         }
       } else if (rpmHi > rpmLo) {
         for (let j = 0; j < count; j++) candidates.push(flagsFor(rpmLo + ((rpmHi - rpmLo) * j) / (count - 1), null));
       }
-      const extra = [n0, ctx.feedCeiling / (fz0 * z), (1000 * ctx.vcMin) / (Math.PI * deffNominal), (1000 * ctx.vcMax) / (Math.PI * deffNominal)];
+      const extra = [n0, ctx.feedCeiling / (fz * z), (1000 * ctx.vcMin) / (Math.PI * deffNominal), (1000 * ctx.vcMax) / (Math.PI * deffNominal)];
       for (const f of forbidden) extra.push(f.lo * (1 - 1e-6), f.hi * (1 + 1e-6));
       for (const n of extra) if (n >= rpmLo && n <= rpmHi) candidates.push(flagsFor(n, undefined));
       if (startFlags) candidates.push(startFlags);
     }
     const nearest = (list: Flags[]): Flags | null => list.reduce<Flags | null>((b, f) => (b === null || dist(f.rpm) < dist(b.rpm) ? f : b), null);
-    const deepest = (list: Flags[]): Flags | null =>
+    // Where the depth must come down anyway, prefer the speed that removes the most material:
+    // removal ∝ min(feed, feed ceiling) × min(depth, safety factor × boundary).
+    const removal = (f: Flags): number => Math.min(fz * z * f.rpm, ctx.feedCeiling) * Math.min(ap, f.aLim === null ? ap : sf * f.aLim);
+    const mostRemoval = (list: Flags[]): Flags | null =>
       list.reduce<Flags | null>((b, f) => {
         if (b === null) return f;
-        const fa = f.aLim ?? Number.MAX_VALUE;
-        const ba = b.aLim ?? Number.MAX_VALUE;
-        return fa > ba || (fa === ba && dist(f.rpm) < dist(b.rpm)) ? f : b;
+        const rf = removal(f);
+        const rb = removal(b);
+        return rf > rb * (1 + 1e-9) || (Math.abs(rf - rb) <= 1e-9 * rb && dist(f.rpm) < dist(b.rpm)) ? f : b;
       }, null);
     const clear = candidates.filter((f) => f.resonance && f.band);
     chosen =
       nearest(candidates.filter(allOk)) ??
       nearest(clear.filter((f) => f.stable && f.vc)) ??
+      mostRemoval(clear.filter((f) => f.vc)) ??
       nearest(clear.filter((f) => f.stable)) ??
-      deepest(clear.filter((f) => f.vc)) ??
-      deepest(clear) ??
+      mostRemoval(clear) ??
       nearest(candidates)!;
     const before = startFlags ?? flagsFor(n0, undefined);
     if (dialCandidates) {
@@ -721,7 +755,10 @@ export function recommend(input: RecommendInput): Recommendation {
       }
       if (!before.stable && chosen.stable) {
         binding.add("stability");
-        reasons.push(`the ${fmt(ap0)} mm depth is predicted to chatter at ${fmt(n0)} rpm (boundary ${fmt(before.aLim ?? 0)} mm) but not at the new speed`);
+        reasons.push(`the ${fmt(ap)} mm depth is predicted to chatter at ${fmt(n0)} rpm (boundary ${fmt(before.aLim ?? 0)} mm) but not at the new speed`);
+      } else if (!before.stable && !chosen.stable) {
+        binding.add("stability");
+        reasons.push(`the ${fmt(ap)} mm depth is predicted to chatter at every allowed speed; this one removes the most material once the depth is reduced (boundary ${fmt(chosen.aLim ?? 0)} mm)`);
       }
       if (!before.feed && chosen.feed) {
         binding.add("feed");
@@ -731,10 +768,11 @@ export function recommend(input: RecommendInput): Recommendation {
         binding.add("power");
         reasons.push("the spindle lacked power at that speed");
       }
+      if (!before.vc && chosen.vc) reasons.push("the cutting speed was outside the material's range");
       if (dialCandidates) {
         adjustments.push(`Dial setting ${dial?.label ?? "?"} (${fmt(chosen.rpm)} rpm) chosen${reasons.length ? ` because ${reasons.join("; ")}` : " as the nearest setting"} (computed ${fmt(n0)} rpm).`);
       } else {
-        adjustments.push(`Speed moved from ${fmt(n0)} to ${fmt(chosen.rpm)} rpm because ${reasons.length ? reasons.join("; ") : "no speed met every limit; this one meets the most"}.`);
+        adjustments.push(`Speed moved from ${fmt(n0)} to ${fmt(chosen.rpm)} rpm because ${reasons.length ? reasons.join("; ") : "it is the nearest speed that meets the most limits"}.`);
       }
     } else if (dialCandidates) {
       adjustments.push(`Dial setting ${dial?.label ?? "?"} (${fmt(chosen.rpm)} rpm) matches the computed speed.`);
@@ -749,46 +787,20 @@ export function recommend(input: RecommendInput): Recommendation {
     });
   }
 
-  // ---- 3. Ceilings at the chosen speed -------------------------------------------------------
-  let fz = fz0;
-  let ap = ap0;
-  let ev = evaluate(ctx, rpm, fz, ap);
+  // ---- 4. Speed-dependent ceilings at the chosen speed ---------------------------------------
+  ev = evaluate(ctx, rpm, fz, ap);
   if (ev.feed > ctx.feedCeiling) {
+    const before = fz;
     fz = ctx.feedCeiling / (z * rpm);
     binding.add("feed");
-    adjustments.push(`Feed per tooth reduced from ${fmt(fz0)} to ${fmt(fz)} mm so the feed stays within the ${ctx.feedCeilingLabel} limit of ${fmt(ctx.feedCeiling)} mm/min.`);
+    adjustments.push(`Feed per tooth reduced from ${fmt(before)} to ${fmt(fz)} mm so the feed stays within the ${ctx.feedCeilingLabel} limit of ${fmt(ctx.feedCeiling)} mm/min.`);
     ev = evaluate(ctx, rpm, fz, ap);
   }
-  const floorFz = Math.min(fz, Math.max(RECOMMEND_DEFAULTS.chipFloorFraction * fz0, (1.1 * ctx.minChip) / (ctx.sinFactor * axialFactor0)));
-  const reduceFor = (id: LimitId, label: string, measure: (e: CutEval) => number, ceiling: number, withForce: boolean): void => {
-    const now = measure(ev);
-    if (now <= ceiling) return;
-    binding.add(id);
-    const fzBefore = fz;
-    const apBefore = ap;
-    const x = largestFeasible((v) => measure(evaluate(ctx, rpm, v, ap, withForce)), ceiling, floorFz, fz, now);
-    if (x !== null) {
-      fz = x;
-      adjustments.push(`Feed per tooth reduced from ${fmt(fzBefore)} to ${fmt(fz)} mm to respect the ${label}.`);
-    } else {
-      fz = floorFz;
-      const y = largestFeasible((v) => measure(evaluate(ctx, rpm, fz, v, withForce)), ceiling, 1e-6 * ap0, ap, measure(evaluate(ctx, rpm, fz, ap, withForce)));
-      ap = y ?? 1e-6 * ap0;
-      adjustments.push(
-        (fz < fzBefore ? `Feed per tooth reduced from ${fmt(fzBefore)} to ${fmt(fz)} mm (the lowest this recipe allows) and a` : "A") +
-          `xial depth reduced from ${fmt(apBefore)} to ${fmt(ap)} mm to respect the ${label}; take more, shallower passes.`,
-      );
-    }
-    ev = evaluate(ctx, rpm, fz, ap);
-  };
-  reduceFor("power", `spindle power (${fmt(ctx.powerAt(rpm))} W at ${fmt(rpm)} rpm)`, (e) => e.power, ctx.powerAt(rpm), false);
-  if (!rule.axial) {
-    reduceFor("deflection", `deflection ceiling (${fmt(ctx.deflectionCeiling)} mm)`, (e) => e.totalDefl, ctx.deflectionCeiling, true);
-  }
+  reduceFor(rpm, "power", `spindle power (${fmt(ctx.powerAt(rpm))} W at ${fmt(rpm)} rpm)`, (e) => e.power, ctx.powerAt(rpm), false);
   let limit: Limit | null = stab ? limitAt(stab, ctx, rpm, ev.kt, true) : null;
   if (stab && limit && ap > sf * limit.depth) {
     const before = ap;
-    // a_lim depends on Kt (chip) and the effective diameter only through the chip: iterate to settle.
+    // a_lim depends on Kt (chip) and, for ball and bull cutters, on the depth through the contact: iterate to settle.
     for (let i = 0; i < 4 && limit && ap > sf * limit.depth * (1 + 1e-9); i++) {
       ap = sf * limit.depth;
       ev = evaluate(ctx, rpm, fz, ap);
