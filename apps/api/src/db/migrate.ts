@@ -4,6 +4,7 @@ import { SequelizeStorage, Umzug, type MigrationFn } from "umzug";
 import * as m0001 from "./migrations/0001-users-shops-memberships.js";
 import * as m0002 from "./migrations/0002-sessions-and-rate-limits.js";
 import * as m0003 from "./migrations/0003-library-and-recipes.js";
+import * as m0010 from "./migrations/0010-recipe-ladders-and-list-indexes.js";
 
 type Migration = { up: MigrationFn<Sequelize>; down: MigrationFn<Sequelize> };
 
@@ -12,6 +13,7 @@ const migrations: Array<{ name: string } & Migration> = [
   { name: "0001-users-shops-memberships", ...m0001 },
   { name: "0002-sessions-and-rate-limits", ...m0002 },
   { name: "0003-library-and-recipes", ...m0003 },
+  { name: "0010-recipe-ladders-and-list-indexes", ...m0010 },
 ];
 
 // Any constant shared by every API instance; serialises concurrent start-ups on one database.

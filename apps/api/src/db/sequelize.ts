@@ -4,6 +4,9 @@ import { initUserModel } from "../modules/users/user.model.js";
 import { initShopModel } from "../modules/shops/shop.model.js";
 import { initMembershipModel } from "../modules/shops/membership.model.js";
 import { initRevokedSessionModel } from "../modules/auth/revoked-session.model.js";
+import { initRecipeModels } from "../modules/recipes/recipe.model.js";
+import { initCutLogModels } from "../modules/cut-logs/cut-log.model.js";
+import { initLadderModel } from "../modules/ladders/ladder.model.js";
 
 // BIGINT counts (COUNT(*)) come back as strings by default; our counts fit in a JS number.
 pg.types.setTypeParser(pg.types.builtins.INT8, (value: string) => Number.parseInt(value, 10));
@@ -24,6 +27,9 @@ export function connectDatabase(databaseUrl: string): Sequelize {
   initShopModel(instance);
   initMembershipModel(instance);
   initRevokedSessionModel(instance);
+  initRecipeModels(instance);
+  initCutLogModels(instance);
+  initLadderModel(instance);
   return instance;
 }
 
