@@ -7,11 +7,19 @@
 import { Router } from "express";
 import { registerMemberRoutes } from "./modules/members/members.router.js";
 import { registerShopRoutes } from "./modules/shops/shops.router.js";
+import { registerMaterialRoutes } from "./modules/materials/materials.router.js";
+import { registerCutterRoutes } from "./modules/cutters/cutters.router.js";
+import { registerMachineRoutes } from "./modules/machines/machines.router.js";
+import { registerAssemblyRoutes } from "./modules/assemblies/assemblies.router.js";
 
 export function createShopScopedRouter(): Router {
   const router = Router({ mergeParams: true });
   registerShopRoutes(router);
   registerMemberRoutes(router);
+  registerMaterialRoutes(router);
+  registerCutterRoutes(router);
+  registerMachineRoutes(router);
+  registerAssemblyRoutes(router);
   return router;
 }
 

@@ -340,8 +340,8 @@ export const cutterImportRowSchema = z.object({
   errors: z.record(z.string(), z.string()),
   /** Things worth a look that do not stop the import (e.g. a cutter of that name exists). */
   warnings: z.array(z.string()),
-  /** The cutter the row becomes (mm), when it is valid. */
-  cutter: cutterCreateBodySchema.nullable(),
+  /** The cutter the row becomes (mm, with its status), when it is valid. */
+  cutter: z.object({ ...cutterFields, status: cutterStatusSchema }).nullable(),
 });
 export type CutterImportRow = z.infer<typeof cutterImportRowSchema>;
 export const cutterImportReportSchema = z.object({

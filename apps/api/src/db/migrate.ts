@@ -4,6 +4,7 @@ import { SequelizeStorage, Umzug, type MigrationFn } from "umzug";
 import * as m0001 from "./migrations/0001-users-shops-memberships.js";
 import * as m0002 from "./migrations/0002-sessions-and-rate-limits.js";
 import * as m0003 from "./migrations/0003-library-and-recipes.js";
+import { syncGlobalMaterials } from "../modules/materials/global-materials.sync.js";
 import * as m0010 from "./migrations/0010-recipe-ladders-and-list-indexes.js";
 
 type Migration = { up: MigrationFn<Sequelize>; down: MigrationFn<Sequelize> };
@@ -29,7 +30,8 @@ function umzugFor(sequelize: Sequelize) {
 }
 
 /**
- * Applies pending migrations. Several API instances may start at once, so the run holds a
+ * Applies pending migrations, then brings the reference data every database needs (the global
+ * material library) up to date. Several API instances may start at once, so the run holds a
  * PostgreSQL advisory lock on a separate connection; the others wait and then find nothing to do.
  * Returns the names of the migrations applied.
  */
@@ -39,6 +41,7 @@ export async function migrate(sequelize: Sequelize, databaseUrl: string): Promis
   try {
     await lock.query("SELECT pg_advisory_lock($1)", [MIGRATION_LOCK_KEY]);
     const applied = await umzugFor(sequelize).up();
+    await syncGlobalMaterials(sequelize);
     return applied.map((m) => m.name);
   } finally {
     await lock.query("SELECT pg_advisory_unlock($1)", [MIGRATION_LOCK_KEY]).catch(() => undefined);

@@ -1,7 +1,11 @@
+import { seedLibrary } from "./library.js";
 import { seedPeopleAndShops } from "./people-and-shops.js";
 
 /** Seed modules, one per area, run in order. Later areas append theirs here. */
-const steps: Array<{ area: string; run: () => Promise<number> }> = [{ area: "people and shops", run: seedPeopleAndShops }];
+const steps: Array<{ area: string; run: () => Promise<number> }> = [
+  { area: "people and shops", run: seedPeopleAndShops },
+  { area: "library (machines, cutters, assemblies)", run: seedLibrary },
+];
 
 /** Loads the invented demo scenario; safe to run on every start. */
 export async function seedDemo(log: (line: string) => void = () => undefined): Promise<void> {

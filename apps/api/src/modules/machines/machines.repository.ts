@@ -1,0 +1,140 @@
+import { Op, type WhereOptions } from "sequelize";
+import type { Machine, MachineBody, MachineListQuery, MachineMode } from "@ringdown/contracts";
+import { getSequelize, type Tx } from "../../db/sequelize.js";
+import { likePattern } from "../materials/materials.repository.js";
+import { MachineModeModel } from "./machine-mode.model.js";
+import { MachineModel } from "./machine.model.js";
+
+const toMode = (m: MachineModeModel): MachineMode => ({
+  direction: m.direction,
+  frequencyHz: m.frequencyHz,
+  dampingRatio: m.dampingRatio,
+  stiffnessNPerMm: m.stiffnessNPerMm,
+  source: m.source,
+  note: m.note,
+});
+
+function toMachine(row: MachineModel, modes: MachineModeModel[]): Machine {
+  return {
+    id: row.id,
+    shopId: row.shopId,
+    name: row.name,
+    kind: row.kind,
+    spindle: row.spindle,
+    axes: row.axes,
+    modes: modes.map(toMode),
+    deflectionCeilingMm: row.deflectionCeilingMm,
+    avoidBands: row.avoidBands,
+    modeMarginPct: row.modeMarginPct,
+    estimatedFields: row.estimatedFields,
+    notes: row.notes,
+    createdAt: row.createdAt.toISOString(),
+    updatedAt: row.updatedAt.toISOString(),
+    deletedAt: row.deletedAt ? row.deletedAt.toISOString() : null,
+  };
+}
+
+type MachineColumns = Omit<MachineBody, "modes">;
+
+function columnsOf(body: MachineBody): MachineColumns {
+  const { modes: _modes, ...columns } = body;
+  return columns;
+}
+
+async function modesOf(machineIds: string[], tx?: Tx): Promise<Map<string, MachineModeModel[]>> {
+  const byMachine = new Map<string, MachineModeModel[]>(machineIds.map((id) => [id, []]));
+  if (machineIds.length === 0) return byMachine;
+  const modes = await MachineModeModel.findAll({
+    where: { machineId: machineIds },
+    order: [
+      ["direction", "ASC"],
+      ["frequencyHz", "ASC"],
+      ["id", "ASC"],
+    ],
+    transaction: tx ?? null,
+  });
+  for (const mode of modes) byMachine.get(mode.machineId)?.push(mode);
+  return byMachine;
+}
+
+export async function listMachines(shopId: string, query: MachineListQuery): Promise<{ items: Machine[]; total: number }> {
+  const and: WhereOptions[] = [{ shopId }, { deletedAt: query.deleted ? { [Op.ne]: null } : null }];
+  if (query.kind) and.push({ kind: query.kind });
+  if (query.q) and.push({ name: { [Op.iLike]: likePattern(query.q) } });
+  const { rows, count } = await MachineModel.findAndCountAll({
+    where: { [Op.and]: and },
+    order: [
+      ["name", "ASC"],
+      ["id", "ASC"],
+    ],
+    limit: query.pageSize,
+    offset: (query.page - 1) * query.pageSize,
+  });
+  const modes = await modesOf(rows.map((r) => r.id));
+  return { items: rows.map((r) => toMachine(r, modes.get(r.id) ?? [])), total: count };
+}
+
+/** The shop's machine (in the bin or not) with its modes, or null. */
+export async function findMachine(shopId: string, id: string, tx?: Tx, lock = false): Promise<Machine | null> {
+  const row = await MachineModel.findOne({
+    where: { id, shopId },
+    transaction: tx ?? null,
+    ...(tx && lock ? { lock: tx.LOCK.UPDATE } : {}),
+  });
+  if (!row) return null;
+  return toMachine(row, (await modesOf([row.id], tx)).get(row.id) ?? []);
+}
+
+/** Replaces the machine's whole mode set (the caller's transaction keeps it all-or-nothing). */
+export async function replaceModes(shopId: string, machineId: string, modes: MachineMode[], tx: Tx): Promise<void> {
+  await MachineModeModel.destroy({ where: { shopId, machineId }, transaction: tx });
+  if (modes.length > 0) {
+    await MachineModeModel.bulkCreate(
+      modes.map((m) => ({ ...m, shopId, machineId })),
+      { transaction: tx },
+    );
+  }
+}
+
+export async function insertMachine(shopId: string, body: MachineBody, tx: Tx, id?: string): Promise<Machine> {
+  const row = await MachineModel.create({ ...(id ? { id } : {}), shopId, ...columnsOf(body) }, { transaction: tx });
+  await replaceModes(shopId, row.id, body.modes, tx);
+  const created = await findMachine(shopId, row.id, tx);
+  if (!created) throw new Error("machine vanished after insert");
+  return created;
+}
+
+export async function updateMachine(
+  shopId: string,
+  id: string,
+  changes: Partial<MachineColumns> & { deletedAt?: Date | null },
+  tx: Tx,
+): Promise<void> {
+  const row = await MachineModel.findOne({ where: { id, shopId }, transaction: tx });
+  if (!row) return;
+  // A replaced mode set alone still counts as an edit of the machine.
+  row.changed("updatedAt", true);
+  await row.update(changes, { transaction: tx });
+}
+
+/** How many assemblies and recipes (not deleted) are on the machine. */
+export async function countMachineReferences(
+  shopId: string,
+  id: string,
+  tx?: Tx,
+): Promise<{ recipes: number; assemblies: number }> {
+  const [rows] = await getSequelize().query(
+    `SELECT (SELECT count(*) FROM recipes WHERE shop_id = $1 AND machine_id = $2 AND deleted_at IS NULL) AS recipes,
+            (SELECT count(*) FROM assemblies WHERE shop_id = $1 AND machine_id = $2 AND deleted_at IS NULL) AS assemblies`,
+    { bind: [shopId, id], transaction: tx ?? null },
+  );
+  return rows[0] as { recipes: number; assemblies: number };
+}
+
+/** Flags the shop's recipes on the machine for a re-check after its limits changed. */
+export async function flagRecipesOfMachine(shopId: string, id: string, tx?: Tx): Promise<void> {
+  await getSequelize().query(
+    "UPDATE recipes SET needs_recheck = true WHERE shop_id = $1 AND machine_id = $2 AND deleted_at IS NULL",
+    { bind: [shopId, id], transaction: tx ?? null },
+  );
+}

@@ -1,0 +1,93 @@
+import {
+  machineBodySchema,
+  type Machine,
+  type MachineBody,
+  type MachineKind,
+  type MachineListQuery,
+  type MachinePage,
+  type MachinePatchBody,
+} from "@ringdown/contracts";
+import { inTransaction } from "../../db/sequelize.js";
+import { AppError } from "../../http/app-error.js";
+import { machineDefaults } from "./machine-defaults.js";
+import {
+  countMachineReferences,
+  findMachine,
+  flagRecipesOfMachine,
+  insertMachine,
+  listMachines,
+  replaceModes,
+  updateMachine,
+} from "./machines.repository.js";
+
+export async function listShopMachines(shopId: string, query: MachineListQuery): Promise<MachinePage> {
+  const { items, total } = await listMachines(shopId, query);
+  return { items, total, page: query.page, pageSize: query.pageSize };
+}
+
+export async function getMachine(shopId: string, id: string): Promise<Machine> {
+  const machine = await findMachine(shopId, id);
+  if (!machine) throw AppError.notFound("Machine not found.");
+  return machine;
+}
+
+export function defaultsForKind(kind: MachineKind): MachineBody {
+  return machineDefaults(kind);
+}
+
+export function createMachine(shopId: string, body: MachineBody): Promise<Machine> {
+  return inTransaction((tx) => insertMachine(shopId, body, tx));
+}
+
+function bodyOf(m: Machine): MachineBody {
+  const { id: _i, shopId: _s, createdAt: _c, updatedAt: _u, deletedAt: _d, ...body } = m;
+  return body;
+}
+
+/**
+ * Changes the fields sent. `modes`, when sent, replaces the machine's whole mode set; the machine
+ * and its modes change together or not at all.
+ */
+export async function patchMachine(shopId: string, id: string, patch: MachinePatchBody): Promise<Machine> {
+  return inTransaction(async (tx) => {
+    const current = await findMachine(shopId, id, tx, true);
+    if (!current) throw AppError.notFound("Machine not found.");
+    if (current.deletedAt) throw AppError.conflict("This machine is deleted; restore it before editing it.");
+    const merged = machineBodySchema.parse({ ...bodyOf(current), ...patch });
+    const { modes, ...columns } = merged;
+    await updateMachine(shopId, id, columns, tx);
+    if (patch.modes !== undefined) await replaceModes(shopId, id, modes, tx);
+    const { name: _n, notes: _no, estimatedFields: _e, ...limits } = patch;
+    if (Object.keys(limits).length > 0) await flagRecipesOfMachine(shopId, id, tx);
+    const updated = await findMachine(shopId, id, tx);
+    if (!updated) throw AppError.notFound("Machine not found.");
+    return updated;
+  });
+}
+
+/** Soft delete; refused while assemblies or recipes are on the machine. */
+export async function deleteMachine(shopId: string, id: string): Promise<void> {
+  await inTransaction(async (tx) => {
+    const current = await findMachine(shopId, id, tx, true);
+    if (!current || current.deletedAt) throw AppError.notFound("Machine not found.");
+    const refs = await countMachineReferences(shopId, id, tx);
+    if (refs.assemblies + refs.recipes > 0) {
+      const a = `${refs.assemblies} cutter ${refs.assemblies === 1 ? "assembly" : "assemblies"}`;
+      const r = `${refs.recipes} ${refs.recipes === 1 ? "recipe" : "recipes"}`;
+      throw AppError.conflict(`This machine has ${a} and ${r}; delete or move those before deleting the machine.`);
+    }
+    await updateMachine(shopId, id, { deletedAt: new Date() }, tx);
+  });
+}
+
+export async function restoreMachine(shopId: string, id: string): Promise<Machine> {
+  return inTransaction(async (tx) => {
+    const current = await findMachine(shopId, id, tx, true);
+    if (!current) throw AppError.notFound("Machine not found.");
+    if (!current.deletedAt) return current;
+    await updateMachine(shopId, id, { deletedAt: null }, tx);
+    const restored = await findMachine(shopId, id, tx);
+    if (!restored) throw AppError.notFound("Machine not found.");
+    return restored;
+  });
+}
