@@ -19,15 +19,27 @@ export const routes: RouteObject[] = [
       { path: "sign-in", lazy: page(() => import("./routes/auth/sign-in"), (m) => m.SignInRoute) },
       { path: "sign-up", lazy: page(() => import("./routes/auth/sign-up"), (m) => m.SignUpRoute) },
       {
+        // Signed-in pages without the rail: the printable setup card and the phone cut-log form (its QR target).
+        lazy: page(() => import("./routes/app/focused-layout"), (m) => m.FocusedLayoutRoute),
+        errorElement: <RouteError />,
+        children: [
+          { path: "recipes/:recipeId/card", lazy: page(() => import("./routes/app/recipe-card"), (m) => m.RecipeCardRoute) },
+          { path: "log/:recipeId", lazy: page(() => import("./routes/app/log-cut"), (m) => m.LogCutRoute) },
+        ],
+      },
+      {
         lazy: page(() => import("./routes/app/layout"), (m) => m.AppLayoutRoute),
         errorElement: <RouteError />,
         children: [
           { index: true, element: <Navigate to="/planner" replace /> },
           { path: "planner", lazy: page(() => import("./routes/app/planner"), (m) => m.PlannerRoute) },
           { path: "recipes", lazy: page(() => import("./routes/app/recipes"), (m) => m.RecipesRoute) },
+          { path: "recipes/:recipeId", lazy: page(() => import("./routes/app/recipe"), (m) => m.RecipeRoute) },
           { path: "cutters", lazy: page(() => import("./routes/app/cutters"), (m) => m.CuttersRoute) },
           { path: "materials", lazy: page(() => import("./routes/app/materials"), (m) => m.MaterialsRoute) },
           { path: "machines", lazy: page(() => import("./routes/app/machines"), (m) => m.MachinesRoute) },
+          { path: "machines/new", lazy: page(() => import("./routes/app/machine-new"), (m) => m.MachineNewRoute) },
+          { path: "machines/:machineId", lazy: page(() => import("./routes/app/machine-detail"), (m) => m.MachineDetailRoute) },
           { path: "team", lazy: page(() => import("./routes/app/team"), (m) => m.TeamRoute) },
           { path: "billing", lazy: page(() => import("./routes/app/billing"), (m) => m.BillingRoute) },
           { path: "*", lazy: page(() => import("./routes/not-found"), (m) => m.NotFoundRoute) },

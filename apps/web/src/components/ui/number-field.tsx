@@ -18,6 +18,8 @@ export interface NumberFieldProps {
   nullable?: boolean;
   /** Something shown beside the label, e.g. an "estimate" tag. */
   tag?: ReactNode;
+  /** Keeps the label for screen readers only (inside a table whose headers say it). */
+  hideLabel?: boolean;
   placeholder?: string;
   disabled?: boolean;
   className?: string;
@@ -29,7 +31,7 @@ export interface NumberFieldProps {
  * values only; the unit is shown inside the box. Schema limits in error messages are rewritten
  * into the same unit.
  */
-export function NumberField({ name, label, measure, hint, system, nullable = false, tag, placeholder, disabled, className }: NumberFieldProps) {
+export function NumberField({ name, label, measure, hint, system, nullable = false, tag, hideLabel = false, placeholder, disabled, className }: NumberFieldProps) {
   const id = useId();
   const preferred = useUnitSystem();
   const shownIn = system ?? preferred;
@@ -56,7 +58,7 @@ export function NumberField({ name, label, measure, hint, system, nullable = fal
     <Field
       id={id}
       label={
-        <span className="inline-flex flex-wrap items-center gap-x-2 gap-y-1">
+        <span className={hideLabel ? "sr-only" : "inline-flex flex-wrap items-center gap-x-2 gap-y-1"}>
           <span>
             {label}
             {unit && <span className="sr-only"> ({unit})</span>}

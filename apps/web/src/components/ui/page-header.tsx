@@ -15,15 +15,17 @@ export function PageHeader({ title, description, actions, eyebrow }: { title: Re
 }
 
 /** A quiet, dismissable confirmation of what just happened (announced to screen readers). */
-export function Notice({ children, onDismiss, tone = "ok" }: { children: ReactNode; onDismiss?: () => void; tone?: "ok" | "limit" }) {
+const noticeTones = {
+  ok: "border-ok/30 bg-ok/5 text-ink",
+  near: "border-near/50 bg-near/10 text-ink",
+  limit: "border-limit/40 bg-limit/5 text-limit",
+} as const;
+
+export function Notice({ children, onDismiss, tone = "ok" }: { children: ReactNode; onDismiss?: () => void; tone?: keyof typeof noticeTones }) {
   return (
     <div
       role={tone === "limit" ? "alert" : "status"}
-      className={
-        tone === "limit"
-          ? "flex items-start justify-between gap-3 rounded-md border border-limit/40 bg-limit/5 px-3 py-2 text-sm text-limit"
-          : "flex items-start justify-between gap-3 rounded-md border border-ok/30 bg-ok/5 px-3 py-2 text-sm text-ink"
-      }
+      className={`flex items-start justify-between gap-3 rounded-md border px-3 py-2 text-sm ${noticeTones[tone]}`}
     >
       <div>{children}</div>
       {onDismiss && (

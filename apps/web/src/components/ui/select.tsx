@@ -37,6 +37,7 @@ export function SelectField({
   placeholder,
   tag,
   disabled,
+  hideLabel = false,
 }: {
   name: string;
   label: ReactNode;
@@ -45,6 +46,8 @@ export function SelectField({
   placeholder?: string;
   tag?: ReactNode;
   disabled?: boolean;
+  /** Keeps the label for screen readers only (inside a table whose headers say it). */
+  hideLabel?: boolean;
 }) {
   const id = useId();
   const {
@@ -56,7 +59,7 @@ export function SelectField({
     <Field
       id={id}
       label={
-        <span className="inline-flex flex-wrap items-center gap-x-2">
+        <span className={hideLabel ? "sr-only" : "inline-flex flex-wrap items-center gap-x-2"}>
           {label}
           {tag}
         </span>

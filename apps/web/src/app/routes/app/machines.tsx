@@ -1,5 +1,5 @@
-import { AreaPlaceholder } from "@/features/shell/components/area-placeholder";
+import { MachinesPage } from "@/features/machines/components/machines-page";
 
 export function MachinesRoute() {
-  return <AreaPlaceholder area="machines" />;
+  return <MachinesPage />;
 }
