@@ -1,4 +1,4 @@
-import { mkdtempSync, mkdirSync, writeFileSync } from "node:fs";
+import { mkdtempSync, mkdirSync, rmSync, writeFileSync } from "node:fs";
 import { tmpdir } from "node:os";
 import path from "node:path";
 import express from "express";
@@ -138,6 +138,7 @@ describe("serving the web app", () => {
   writeFileSync(path.join(dist, "index.html"), "<!doctype html><title>Ringdown test shell</title>");
   writeFileSync(path.join(dist, "assets", "app-3f2a.js"), "console.log('app');");
   const withWeb = makeTestApp({ webDist: dist });
+  afterAll(() => rmSync(dist, { recursive: true, force: true }));
 
   it("serves files, with long caching for hashed assets", async () => {
     const res = await request(withWeb).get("/assets/app-3f2a.js");
