@@ -22,7 +22,7 @@ export function LimitBarRow({ bar }: { bar: LimitBar }) {
         className="relative h-2.5 rounded-full bg-rule/60 print:border print:border-black print:bg-white"
       >
         <div
-          className="absolute inset-y-0 left-0 rounded-full print:bg-black!"
+          className="bar-fill absolute inset-y-0 left-0 rounded-full"
           style={{ width: `${Math.max(bar.fill * 100, bar.fill > 0 ? 1.5 : 0)}%`, backgroundColor: bar.colour }}
         />
         <div
