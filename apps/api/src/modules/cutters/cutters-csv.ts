@@ -192,12 +192,15 @@ function readRow(
   const raw: Record<string, unknown> = {};
   /** Which header each field came from, to report schema errors against the user's column. */
   const headerOf: Partial<Record<FieldKey, string>> = {};
+  /** Fields whose cell already has an error (the schema's message for them would only repeat it). */
+  const failed = new Set<FieldKey>();
 
   for (const col of columns) {
     const present = headersOf(col).filter((h) => (values[h] ?? "") !== "");
     headerOf[col.field] = present[0] ?? headersOf(col).find((h) => h in values) ?? headersOf(col)[0];
     if (present.length > 1) {
-      errors[present[1]!] = `Give ${col.header.replace(/_/g, " ")} in mm or in inches, not both.`;
+      errors[`${col.header}_in`] = `Give ${col.header.replace(/_/g, " ")} in mm or in inches, not both.`;
+      failed.add(col.field);
       continue;
     }
     const header = present[0];
@@ -208,6 +211,10 @@ function readRow(
       continue;
     }
     let cell = values[header]!;
+    const fail = (column: string, message: string) => {
+      errors[column] = message;
+      failed.add(col.field);
+    };
     switch (col.kind) {
       case "text":
         if (cell.startsWith("'") && FORMULA_START.test(cell.slice(1))) cell = cell.slice(1);
@@ -216,25 +223,25 @@ function readRow(
       case "shape": {
         const v = norm(cell);
         if ((cutterShapes as readonly string[]).includes(v)) raw.shape = v;
-        else errors[header] = `Unknown shape “${cell}”. Use one of: ${cutterShapes.join(", ")}.`;
+        else fail(header, `Unknown shape “${cell}”. Use one of: ${cutterShapes.join(", ")}.`);
         break;
       }
       case "toolMaterial": {
         const v = norm(cell);
         if ((toolMaterials as readonly string[]).includes(v)) raw.toolMaterial = v;
-        else errors[header] = `Unknown tool material “${cell}”. Use one of: ${toolMaterials.join(", ")}.`;
+        else fail(header, `Unknown tool material “${cell}”. Use one of: ${toolMaterials.join(", ")}.`);
         break;
       }
       case "status": {
         const v = norm(cell);
         if ((cutterStatuses as readonly string[]).includes(v)) raw.status = v;
-        else errors[header] = `Unknown status “${cell}”. Use one of: ${cutterStatuses.join(", ")}.`;
+        else fail(header, `Unknown status “${cell}”. Use one of: ${cutterStatuses.join(", ")}.`);
         break;
       }
       default: {
         const n = readNumber(cell, decimalComma);
         if (n === null) {
-          errors[header] = `“${cell}” is not a number.`;
+          fail(header, `“${cell}” is not a number.`);
           break;
         }
         raw[col.field] = col.kind === "length" && header.endsWith("_in") ? n * MM_PER_INCH : n;
@@ -249,6 +256,7 @@ function readRow(
   if (!parsed.success) {
     for (const issue of parsed.error.issues) {
       const field = issue.path[0] as FieldKey | undefined;
+      if (field && failed.has(field)) continue;
       const header = field ? (headerOf[field] ?? String(field)) : "row";
       if (errors[header]) continue;
       const inInches = header.endsWith("_in") ? " (after converting to mm)" : "";
