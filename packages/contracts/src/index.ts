@@ -7,3 +7,4 @@ export * from "./members.js";
 export * from "./library.js";
 export * from "./recipes.js";
 export * from "./planning.js";
+export * from "./vibration.js";
