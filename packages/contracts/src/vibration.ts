@@ -7,6 +7,27 @@ import { axisSchema, ceilingBandSchema, modeSources } from "./library.js";
  * Lengths in mm, forces in N, stiffness in N/mm, frequencies in Hz, speeds in rpm, receptance in mm/N.
  * Routes live under /api/shops/:shopId/machines/:machineId/ (see each schema), plus
  * POST /api/shops/:shopId/recordings/:id/accept-mode and …/accept-dial-rpm.
+ *
+ *   GET    stiffness-readings            → stiffnessReadingListSchema       (every member)
+ *   POST   stiffness-readings            → 201 stiffnessReadingMutationSchema (owner, tooling manager)
+ *   DELETE stiffness-readings/:id        → 200 stiffnessReadingMutationSchema (owner, tooling manager)
+ *   GET    stiffness-map?cells=21        → stiffnessMapSchema
+ *   GET    backlash-readings             → backlashReadingListSchema
+ *   POST   backlash-readings             → 201 backlashReadingMutationSchema (owner, tooling manager)
+ *   DELETE backlash-readings/:id         → 200 backlashReadingMutationSchema (owner, tooling manager)
+ *   GET    modes                         → machineModeListSchema
+ *   POST   modes                         → 201 modeMutationSchema (owner, tooling manager)
+ *   PATCH  modes/:id                     → 200 modeMutationSchema (owner, tooling manager)
+ *   DELETE modes/:id                     → 200 modeMutationSchema (the removed mode; owner, tooling manager)
+ *   GET    ceilings                      → ceilingsSchema
+ *   PUT    ceilings                      → 200 ceilingsMutationSchema (owner, tooling manager)
+ *   GET    recordings?kind=              → recordingListSchema (newest first, without results)
+ *   POST   recordings (multipart)        → 202 recordingAcceptedSchema (every member)
+ *   GET    recordings/:id                → recordingDetailSchema (poll while queued / analysing)
+ *   GET    recordings/:id/file           → the uploaded file as stored
+ *   DELETE recordings/:id                → 204 (owner, tooling manager; modes accepted from it stay)
+ *   POST   /api/shops/:shopId/recordings/:id/accept-mode      → 201 acceptModeResponseSchema (owner, tooling manager)
+ *   POST   /api/shops/:shopId/recordings/:id/accept-dial-rpm  → 200 acceptDialRpmResponseSchema (owner, tooling manager)
  */
 
 const uuid = z.string().uuid();
@@ -25,14 +46,14 @@ export const RECHECK_THRESHOLD_PCT = 15;
 
 /** What moved, by how much, and whether it crossed the re-check threshold. */
 export const vibrationChangeSchema = z.object({
-  /** "stiffness" (machine static stiffness in a direction) or "mode" (a mode's frequency or modal stiffness) */
-  what: z.enum(["stiffness", "mode_frequency", "mode_stiffness", "mode_added", "mode_removed"]),
+  /** Machine static stiffness or axis backlash in a direction, or a mode's frequency / modal stiffness, or a mode added / removed */
+  what: z.enum(["stiffness", "backlash", "mode_frequency", "mode_stiffness", "mode_added", "mode_removed"]),
   direction: axisSchema,
   before: z.number().nullable(),
   after: z.number().nullable(),
   /** |after − before| / before × 100; null when a mode was added or removed */
   changePct: z.number().nullable(),
-  unit: z.enum(["N/mm", "Hz"]),
+  unit: z.enum(["N/mm", "Hz", "mm"]),
   /** True when this change alone sets needs_recheck on the machine's recipes */
   material: z.boolean(),
 });
@@ -41,7 +62,7 @@ export type VibrationChange = z.infer<typeof vibrationChangeSchema>;
 /** Every mutation that can move stiffness or modes answers with these next to the changed row. */
 export const recheckOutcomeSchema = z.object({
   changes: z.array(vibrationChangeSchema),
-  /** Recipes on this machine newly flagged `needsRecheck` by this request */
+  /** Recipes on this machine (not deleted) marked `needsRecheck` by this request, already-marked ones included; 0 when no change was material */
   recipesFlagged: z.number().int().min(0),
 });
 export type RecheckOutcome = z.infer<typeof recheckOutcomeSchema>;
@@ -153,7 +174,7 @@ export const backlashReadingSchema = z.object({
 export type BacklashReading = z.infer<typeof backlashReadingSchema>;
 export const backlashReadingListSchema = z.object({ items: z.array(backlashReadingSchema) });
 /** POST / DELETE answer: the machine's axis backlash is the latest reading per axis (unchanged when an axis has none). */
-export const backlashReadingMutationSchema = z.object({
+export const backlashReadingMutationSchema = recheckOutcomeSchema.extend({
   reading: backlashReadingSchema,
   machineBacklashMm: machineStiffnessSchema,
 });
@@ -240,6 +261,9 @@ export const ceilingsSchema = z.object({
   modeMarginPct: z.number(),
 });
 export type Ceilings = z.infer<typeof ceilingsSchema>;
+/** PUT …/ceilings answer: any change of a ceiling marks the machine's recipes for a re-check (as a machine edit does). */
+export const ceilingsMutationSchema = ceilingsSchema.extend({ recipesFlagged: z.number().int().min(0) });
+export type CeilingsMutation = z.infer<typeof ceilingsMutationSchema>;
 
 // ---------------------------------------------------------------- recordings
 export const recordingKinds = ["cut", "tap", "spindle_free", "frf"] as const;
