@@ -29,6 +29,7 @@ export { steppedToolDeflectionMm, FLUTED_DIAMETER_RATIO } from "./deflection/ste
 export { seriesStiffness } from "./deflection/series-stiffness.js";
 export { stiffnessMapLookup, type Axis, type StiffnessPoint, type StiffnessLookup } from "./deflection/stiffness-map-lookup.js";
 export { stiffnessAt } from "./deflection/stiffness-at.js";
+export { stiffnessGrid, type StiffnessGrid } from "./deflection/stiffness-grid.js";
 export { radialEngagementChange } from "./deflection/radial-engagement-change.js";
 
 // dynamics/
@@ -61,6 +62,7 @@ export {
   type SpeedSuggestion,
 } from "./signal/analyze-recording.js";
 export { analyzeRingDown, type RingDownAnalysis } from "./signal/analyze-ring-down.js";
+export { decimateSpectrum, type DecimatedSpectrum } from "./signal/decimate-spectrum.js";
 
 // units/
 export { UNIT_FACTORS, DISPLAY_UNITS, type Quantity, type UnitOf, type UnitSystem } from "./units/unit-factors.js";
