@@ -334,6 +334,15 @@ describe("recommend — explanation and output hygiene", () => {
     expect(JSON.parse(JSON.stringify(r))).toEqual(r);
   });
 
+  it("builds the explanations on first read, yet they travel with the object (JSON, spread, structured clone)", () => {
+    const r = recommend(demoInput);
+    expect(Object.keys(r)).toContain("explain");
+    expect(JSON.parse(JSON.stringify(r)).explain.rpm.formula).toMatch(/1000 · vc/);
+    expect({ ...recommend(demoInput) }.explain.feedMmPerMin.formula).toBe("vf = fz · z · n");
+    expect(structuredClone(recommend(demoInput)).explain.powerW.inputs.length).toBeGreaterThan(1);
+    expect(r.explain).toBe(r.explain);
+  });
+
   it("lists every bad field of an impossible input in one typed error", () => {
     try {
       recommend({ ...demoInput, cutter: { ...demoCutter, diameterMm: -6, flutes: 0 }, engagement: { axialDepthMm: 0 }, machine: { ...demoRouter, modes: [{ direction: "x", frequencyHz: 700, dampingRatio: 1.5, stiffnessNPerMm: 100 }] } });

@@ -3,12 +3,12 @@ import { FLUTED_DIAMETER_RATIO, steppedToolDeflectionMm } from "../deflection/st
 import { directionalFactors } from "../dynamics/directional-factors.js";
 import {
   boundaryAtRpm,
+  cachedBranches,
   cachedFrfGrid,
   envelopeOverSpeeds,
   FAST_GRID,
   frequencyBandHz,
   refineHit,
-  solveBranches,
   type Branches,
 } from "../dynamics/internal/stability-model.js";
 import type { Mode } from "../dynamics/mode.js";
@@ -290,7 +290,7 @@ function buildStability(ctx: Context, rpmLo: number, rpmHi: number): StabilityCt
   const feedAxis = ctx.input.feedAxis ?? "any";
   const axes: ("x" | "y")[] = feedAxis === "any" ? ["x", "y"] : [feedAxis];
   // Kt = 1: every depth found is divided by the actual Kt (a_lim ∝ 1/Kt; the phases do not depend on it).
-  const branches = axes.map((ax) => solveBranches(grid, alpha, ctx.z, 1, ax === "y"));
+  const branches = axes.map((ax) => cachedBranches(grid, alpha, ctx.z, ax === "y"));
   return { axes, branches, modes, alpha };
 }
 
@@ -300,10 +300,11 @@ interface Limit {
   axis: "x" | "y";
 }
 
-function limitAt(st: StabilityCtx, ctx: Context, rpm: number, kt: number, refine: boolean): Limit | null {
+function limitAt(st: StabilityCtx, ctx: Context, rpm: number, kt: number, refine: boolean, capMm = Number.MAX_VALUE): Limit | null {
   let best: Limit | null = null;
   st.branches.forEach((br, i) => {
-    let hit = boundaryAtRpm(br, ctx.z, rpm);
+    // Branch depths are for Kt = 1: the cap scales the same way.
+    let hit = boundaryAtRpm(br, ctx.z, rpm, capMm * kt);
     if (!hit) return;
     if (refine) hit = refineHit(hit, br, st.modes, st.alpha, ctx.z, 1, rpm, st.axes[i] === "y");
     const depth = hit.limitingDepthMm / kt;
@@ -632,7 +633,13 @@ export function recommend(input: RecommendInput): Recommendation {
   }
   const vcAt = (n: number): number => (Math.PI * deffNominal * n) / 1000;
   const mrrAt = (n: number): number => (rule.axial ? ((Math.PI * ctx.d * ctx.d) / 4) * fz * z * n : ap * ctx.ae * fz * z * n);
-  const cheapFlags = (n: number): { resonance: boolean; band: boolean; feed: boolean; power: boolean; vc: boolean } => {
+  // Speeds inside the material's range; when the spindle cannot reach it at all the flag is moot.
+  const nVcLo = (1000 * ctx.vcMin) / (Math.PI * deffNominal);
+  const nVcHi = (1000 * ctx.vcMax) / (Math.PI * deffNominal);
+  const vcReachable = nVcHi >= rpmLo * (1 - 1e-9) && nVcLo <= rpmHi * (1 + 1e-9);
+  // Depths beyond this are "stable enough": the speed search only needs the boundary below it.
+  const capMm = (1.5 * ap) / sf;
+  const flagsAt = (n: number, aLim?: number | null): Flags => {
     let resonance = true;
     let band = true;
     for (const f of forbidden) {
@@ -642,101 +649,107 @@ export function recommend(input: RecommendInput): Recommendation {
       }
     }
     const vc = vcAt(n);
+    const lim = aLim !== undefined ? aLim : stab ? (limitAt(stab, ctx, n, kt1, false, capMm)?.depth ?? null) : null;
     return {
+      rpm: n,
       resonance,
       band,
       feed: fz * z * n <= ctx.feedCeiling * (1 + 1e-12),
       power: (kt1 * mrrAt(n)) / 60000 <= ctx.powerAt(n) * (1 + 1e-12),
-      vc: vc >= ctx.vcMin * (1 - 1e-9) && vc <= ctx.vcMax * (1 + 1e-9),
+      vc: !vcReachable || (vc >= ctx.vcMin * (1 - 1e-9) && vc <= ctx.vcMax * (1 + 1e-9)),
+      stable: lim === null || ap <= sf * lim,
+      aLim: lim,
     };
-  };
-  const flagsFor = (n: number, aLim: number | null | undefined): Flags => {
-    const c = cheapFlags(n);
-    const lim = aLim === undefined ? (stab ? (limitAt(stab, ctx, n, kt1, false)?.depth ?? null) : null) : aLim;
-    return { rpm: n, ...c, stable: lim === null || ap <= sf * lim, aLim: lim };
   };
   const allOk = (f: Flags): boolean => f.resonance && f.band && f.feed && f.power && f.vc && f.stable;
   const dist = (n: number): number => Math.abs(Math.log(n / n0));
-
-  let chosen: Flags;
-  let dial: DialSpeed | null = null;
-  const startFlags = dialCandidates ? null : flagsFor(n0, undefined);
-  // Nearest speed meeting every limit, found cheaply first: the cheap checks (modes, bands, feed,
-  // power, speed range) on candidate speeds in order of distance, the stability check only on
-  // those that pass them.
-  let quick: Flags | null = startFlags && allOk(startFlags) ? startFlags : null;
-  if (!quick) {
-    const pool: number[] = dialCandidates
-      ? dialCandidates.map((dl) => dl.rpm)
-      : [n0, ctx.feedCeiling / (fz * z), (1000 * ctx.vcMin) / (Math.PI * deffNominal), (1000 * ctx.vcMax) / (Math.PI * deffNominal)];
-    if (!dialCandidates) {
-      for (const f of forbidden) pool.push(f.lo * (1 - 1e-6), f.hi * (1 + 1e-6));
-      for (let j = 0; j < 64; j++) pool.push(rpmLo * Math.pow(rpmHi / rpmLo, j / 63));
-    }
-    const inRange = pool
-      .filter((n) => {
-        if (!(n >= rpmLo * (1 - 1e-9) && n <= rpmHi * (1 + 1e-9))) return false;
-        const c = cheapFlags(n);
-        return c.resonance && c.band && c.feed && c.power && c.vc;
-      })
-      .sort((a, b) => dist(a) - dist(b));
-    for (const n of inRange.slice(0, 12)) {
-      const f = flagsFor(n, undefined);
-      if (allOk(f)) {
-        quick = f;
-        break;
-      }
-    }
-  }
-  if (quick && quick === startFlags) {
-    chosen = quick;
-  } else {
-    let candidates: Flags[];
-    if (quick) {
-      candidates = [quick];
-    } else if (dialCandidates) {
-      candidates = dialCandidates.map((dl) => flagsFor(dl.rpm, undefined));
-    } else {
-      candidates = [];
-      const count = 160;
-      if (stab && rpmHi > rpmLo) {
-        const envs = stab.branches.map((br) => envelopeOverSpeeds(br, z, rpmLo, rpmHi, count, 400));
-        for (let j = 0; j < count; j++) {
-          let lim: number | null = null;
-          for (const env of envs) {
-            const v = env.limitingDepthMm[j]!;
-            if (Number.isFinite(v) && (lim === null || v / kt1 < lim)) lim = v / kt1;
-          }
-          candidates.push(flagsFor(envs[0]!.rpm[j]!, lim));
-        }
-      } else if (rpmHi > rpmLo) {
-        for (let j = 0; j < count; j++) candidates.push(flagsFor(rpmLo + ((rpmHi - rpmLo) * j) / (count - 1), null));
-      }
-      const extra = [n0, ctx.feedCeiling / (fz * z), (1000 * ctx.vcMin) / (Math.PI * deffNominal), (1000 * ctx.vcMax) / (Math.PI * deffNominal)];
-      for (const f of forbidden) extra.push(f.lo * (1 - 1e-6), f.hi * (1 + 1e-6));
-      for (const n of extra) if (n >= rpmLo && n <= rpmHi) candidates.push(flagsFor(n, undefined));
-      if (startFlags) candidates.push(startFlags);
-    }
-    const nearest = (list: Flags[]): Flags | null => list.reduce<Flags | null>((b, f) => (b === null || dist(f.rpm) < dist(b.rpm) ? f : b), null);
-    // Where the depth must come down anyway, prefer the speed that removes the most material:
-    // removal ∝ min(feed, feed ceiling) × min(depth, safety factor × boundary).
-    const removal = (f: Flags): number => Math.min(fz * z * f.rpm, ctx.feedCeiling) * Math.min(ap, f.aLim === null ? ap : sf * f.aLim);
-    const mostRemoval = (list: Flags[]): Flags | null =>
-      list.reduce<Flags | null>((b, f) => {
-        if (b === null) return f;
-        const rf = removal(f);
-        const rb = removal(b);
-        return rf > rb * (1 + 1e-9) || (Math.abs(rf - rb) <= 1e-9 * rb && dist(f.rpm) < dist(b.rpm)) ? f : b;
-      }, null);
+  const nearest = (list: Flags[]): Flags | null => list.reduce<Flags | null>((b, f) => (b === null || dist(f.rpm) < dist(b.rpm) ? f : b), null);
+  // Where the depth must come down anyway, prefer the speed that removes the most material:
+  // removal ∝ min(feed, feed ceiling) × min(depth, safety factor × boundary).
+  const removal = (f: Flags): number => Math.min(fz * z * f.rpm, ctx.feedCeiling) * Math.min(ap, f.aLim === null ? ap : sf * f.aLim);
+  const mostRemoval = (list: Flags[]): Flags | null =>
+    list.reduce<Flags | null>((b, f) => {
+      if (b === null) return f;
+      const rf = removal(f);
+      const rb = removal(b);
+      return rf > rb * (1 + 1e-9) || (Math.abs(rf - rb) <= 1e-9 * rb && dist(f.rpm) < dist(b.rpm)) ? f : b;
+    }, null);
+  const pick = (candidates: Flags[]): Flags => {
     const clear = candidates.filter((f) => f.resonance && f.band);
-    chosen =
+    return (
       nearest(candidates.filter(allOk)) ??
       nearest(clear.filter((f) => f.stable && f.vc)) ??
       mostRemoval(clear.filter((f) => f.vc)) ??
       nearest(clear.filter((f) => f.stable)) ??
       mostRemoval(clear) ??
-      nearest(candidates)!;
-    const before = startFlags ?? flagsFor(n0, undefined);
+      nearest(candidates)!
+    );
+  };
+
+  let chosen: Flags;
+  let dial: DialSpeed | null = null;
+  const startFlags = dialCandidates ? null : flagsAt(n0);
+  if (startFlags && allOk(startFlags)) {
+    chosen = startFlags;
+  } else if (dialCandidates) {
+    chosen = pick(dialCandidates.map((dl) => flagsAt(dl.rpm)));
+  } else {
+    // Without the chatter boundary the allowed speeds are intervals (speed range, feed, power,
+    // modes, bands), so the nearest allowed speed is the asked one or an interval edge.
+    const edges: number[] = [n0, rpmLo, rpmHi, nVcLo, nVcHi, ctx.feedCeiling / (fz * z)];
+    for (const f of forbidden) edges.push(f.lo * (1 - 1e-6), f.hi * (1 + 1e-6));
+    const c = (kt1 * mrrAt(1)) / 60000; // cutting power per rpm [W/rpm]
+    const curve = machine.spindle.powerCurve;
+    if (curve && curve.length > 0) {
+      const pts = [...curve].sort((a, b) => a.rpm - b.rpm);
+      edges.push(pts[0]!.powerW / c, pts[pts.length - 1]!.powerW / c);
+      for (let i = 0; i + 1 < pts.length; i++) {
+        const a = pts[i]!;
+        const b = pts[i + 1]!;
+        const slope = (b.powerW - a.powerW) / (b.rpm - a.rpm);
+        if (c !== slope) {
+          const n = (a.powerW - slope * a.rpm) / (c - slope);
+          if (n >= a.rpm && n <= b.rpm) edges.push(n * (1 - 1e-9));
+        }
+      }
+    } else edges.push(machine.spindle.ratedPowerW / c);
+    const inRange = edges.filter((n) => Number.isFinite(n) && n >= rpmLo * (1 - 1e-12) && n <= rpmHi * (1 + 1e-12)).map((n) => Math.min(rpmHi, Math.max(rpmLo, n)));
+    const cheap = inRange.map((n) => flagsAt(n, null));
+    const best = pick(cheap);
+    const bestFull = stab ? flagsAt(best.rpm) : best;
+    if (bestFull.stable || !stab) {
+      chosen = bestFull;
+    } else {
+      // The chatter boundary rules the nearest speed out: look at every speed at once through the
+      // lower envelope of the lobes (boundaries above the cap are not traced).
+      const count = 120;
+      const candidates: Flags[] = [];
+      const envs = stab.branches.map((br) => envelopeOverSpeeds(br, z, rpmLo, rpmHi, count, 400, capMm * kt1));
+      const envAt = (n: number): number | null => {
+        if (!(rpmHi > rpmLo)) return null;
+        const x = ((n - rpmLo) / (rpmHi - rpmLo)) * (count - 1);
+        const j = Math.min(count - 2, Math.max(0, Math.floor(x)));
+        const t = x - j;
+        let lim: number | null = null;
+        for (const env of envs) {
+          const v0 = env.limitingDepthMm[j]!;
+          const v1 = env.limitingDepthMm[j + 1]!;
+          // Where either neighbour has no boundary below the cap, the lower one is still an upper bound.
+          const v = Number.isFinite(v0) && Number.isFinite(v1) ? v0 + t * (v1 - v0) : Number.isFinite(v0) ? v0 : v1;
+          if (Number.isFinite(v) && (lim === null || v / kt1 < lim)) lim = v / kt1;
+        }
+        return lim;
+      };
+      if (rpmHi > rpmLo) for (let j = 0; j < count; j++) candidates.push(flagsAt(rpmLo + ((rpmHi - rpmLo) * j) / (count - 1), envAt(rpmLo + ((rpmHi - rpmLo) * j) / (count - 1))));
+      for (const n of inRange) candidates.push(flagsAt(n, envAt(n)));
+      candidates.push(startFlags!);
+      const found = pick(candidates);
+      // Confirm with the exact boundary at the chosen speed.
+      chosen = found === startFlags ? found : flagsAt(found.rpm);
+    }
+  }
+  if (Math.abs(chosen.rpm - n0) > 1e-9 * n0 || dialCandidates) {
+    const before = startFlags ?? flagsAt(n0);
     if (dialCandidates) {
       dial = dialCandidates.find((dl) => dl.rpm === chosen.rpm) ?? null;
     }
@@ -1020,7 +1033,8 @@ export function recommend(input: RecommendInput): Recommendation {
   const speedIds: LimitId[] = ["spindle-max-speed", "cutter-max-speed", "rim-speed", "spindle-min-speed", "resonance", "avoid-band"];
   const ex = (formula: string, inputs: Explanation["inputs"], boundBy: LimitId[], source: string, notes: string[] = []): Explanation => ({ formula, inputs, boundBy, source, notes });
   const movedNotes = adjustments.filter((a) => a.startsWith("Speed") || a.startsWith("Dial"));
-  const explain: Record<ExplainedField, Explanation> = {
+  // Explanations are built on first read: re-checking a machine's recipes never reads them.
+  const buildExplain = (): Record<ExplainedField, Explanation> => ({
     rpm: ex(
       "n = 1000 · vc / (π · D_eff), then capped by the speed ceilings and moved off modes, avoided bands and chatter",
       [
@@ -1216,9 +1230,9 @@ export function recommend(input: RecommendInput): Recommendation {
       "Altintas & Budak, CIRP Annals 44(1) 1995 (from memory)",
       stab ? [] : ["Not checked: no X/Y modes measured or an axial operation."],
     ),
-  };
+  });
 
-  const rec: Recommendation = {
+  const rec: Omit<Recommendation, "explain"> & { explain?: Recommendation["explain"] } = {
     ok: limits.every((l) => l.holds),
     operation: input.operation,
     rpm,
@@ -1256,8 +1270,16 @@ export function recommend(input: RecommendInput): Recommendation {
     limits,
     warnings: w,
     adjustments,
-    explain,
     safetyNotes: SAFETY_NOTES,
   };
-  return rec;
+  Object.defineProperty(rec, "explain", {
+    enumerable: true,
+    configurable: true,
+    get(): Recommendation["explain"] {
+      const value = buildExplain();
+      Object.defineProperty(rec, "explain", { value, enumerable: true, configurable: true, writable: true });
+      return value;
+    },
+  });
+  return rec as Recommendation;
 }

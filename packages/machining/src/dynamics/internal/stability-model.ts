@@ -102,23 +102,50 @@ export function frfOnGrid(modes: readonly Mode[], frequencyHz: Float64Array): Fr
   return { size, frequencyHz, xxRe, xxIm, yyRe, yyIm };
 }
 
-const cache = new Map<string, FrfGrid>();
-const CACHE_SIZE = 16;
+/** A small least-recently-used memo (pure functions of numbers only; bounded memory). */
+class Lru<V> {
+  private readonly map = new Map<string, V>();
+  constructor(private readonly size: number) {}
+  get(key: string): V | undefined {
+    const v = this.map.get(key);
+    if (v !== undefined) {
+      this.map.delete(key);
+      this.map.set(key, v);
+    }
+    return v;
+  }
+  set(key: string, v: V): void {
+    this.map.set(key, v);
+    if (this.map.size > this.size) this.map.delete(this.map.keys().next().value as string);
+  }
+}
+
+const gridCache = new Lru<FrfGrid & { key: string }>(16);
 
 /** FRF grid for a set of modes, memoised (a shop re-checks many recipes on the same machine). */
-export function cachedFrfGrid(modes: readonly Mode[], loHz: number, hiHz: number, density: GridDensity): FrfGrid {
+export function cachedFrfGrid(modes: readonly Mode[], loHz: number, hiHz: number, density: GridDensity): FrfGrid & { key: string } {
   let key = `${loHz}|${hiHz}|${density.basePoints}|${density.perModePoints}`;
   for (const m of modes) key += `|${m.direction}${m.frequencyHz},${m.dampingRatio},${m.stiffnessNPerMm}`;
-  const hit = cache.get(key);
-  if (hit) {
-    cache.delete(key);
-    cache.set(key, hit);
-    return hit;
-  }
-  const grid = frfOnGrid(modes, frequencyGrid(modes, loHz, hiHz, density));
-  cache.set(key, grid);
-  if (cache.size > CACHE_SIZE) cache.delete(cache.keys().next().value as string);
+  const hit = gridCache.get(key);
+  if (hit) return hit;
+  const grid = { ...frfOnGrid(modes, frequencyGrid(modes, loHz, hiHz, density)), key };
+  gridCache.set(key, grid);
   return grid;
+}
+
+const branchCache = new Lru<Branches>(64);
+
+/**
+ * solveBranches memoised on the grid and the directional factors (with Kt = 1 the branches do not
+ * depend on the chip): recipes of one machine share a handful of stepover ratios.
+ */
+export function cachedBranches(grid: FrfGrid & { key: string }, alpha: DirectionalFactors, flutes: number, swapAxes: boolean): Branches {
+  const key = `${grid.key}#${alpha.xx},${alpha.xy},${alpha.yx},${alpha.yy}#${flutes}#${swapAxes ? 1 : 0}`;
+  const hit = branchCache.get(key);
+  if (hit) return hit;
+  const br = solveBranches(grid, alpha, flutes, 1, swapAxes);
+  branchCache.set(key, br);
+  return br;
 }
 
 /** Eigenvalue branches of [α][Φ] on the grid, with the limiting depth and phase of each. */
@@ -266,7 +293,9 @@ export interface BoundaryHit {
  * Lowest boundary crossing at one spindle speed: along each branch, g(f) = 60f/(N n) − ε/2π
  * passes through the integer k exactly where lobe k meets speed n.
  */
-export function boundaryAtRpm(br: Branches, flutes: number, rpm: number): BoundaryHit | null {
+export function boundaryAtRpm(br: Branches, flutes: number, rpm: number, capMm = Number.MAX_VALUE): BoundaryHit | null {
+  // Segments whose depths both exceed the cap cannot give an answer below it (the interpolated depth
+  // is monotonic along a segment), so callers that only ask "is this depth stable?" pass a cap.
   const q = 60 / (flutes * rpm);
   const twoPi = 2 * Math.PI;
   let best: BoundaryHit | null = null;
@@ -278,7 +307,12 @@ export function boundaryAtRpm(br: Branches, flutes: number, rpm: number): Bounda
     let prevValid = a[0]! > 0;
     let gPrev = q * f[0]! - eps[0]! / twoPi;
     for (let i = 1; i < br.size; i++) {
-      const valid = a[i]! > 0;
+      const ai = a[i]!;
+      const valid = ai > 0;
+      if (valid && prevValid && ai > capMm && a[i - 1]! > capMm) {
+        gPrev = q * f[i]! - eps[i]! / twoPi;
+        continue;
+      }
       const g = q * f[i]! - eps[i]! / twoPi;
       if (valid && prevValid) {
         const lo = Math.min(gPrev, g);
@@ -316,7 +350,15 @@ export interface Envelope {
   lobeIndex: Float64Array;
 }
 
-export function envelopeOverSpeeds(br: Branches, flutes: number, minRpm: number, maxRpm: number, count: number, maxLobes: number): Envelope {
+export function envelopeOverSpeeds(
+  br: Branches,
+  flutes: number,
+  minRpm: number,
+  maxRpm: number,
+  count: number,
+  maxLobes: number,
+  capMm = Number.MAX_VALUE,
+): Envelope {
   const rpm = new Float64Array(count);
   const depth = new Float64Array(count).fill(NaN);
   const fc = new Float64Array(count).fill(NaN);
@@ -333,7 +375,7 @@ export function envelopeOverSpeeds(br: Branches, flutes: number, minRpm: number,
     for (let i = 0; i + 1 < br.size; i++) {
       const a0 = a[i]!;
       const a1 = a[i + 1]!;
-      if (!(a0 > 0 && a1 > 0)) continue;
+      if (!(a0 > 0 && a1 > 0) || (a0 > capMm && a1 > capMm)) continue;
       const l0 = lr[i]!;
       const l1 = lr[i + 1]!;
       const f0 = f[i]!;
