@@ -5,21 +5,39 @@
  * non-members, so a new route cannot escape that check.
  */
 import { Router } from "express";
+import { readConfig, type AppConfig } from "./config/env.js";
 import { registerMemberRoutes } from "./modules/members/members.router.js";
+import { registerInvitationRoutes } from "./modules/invitations/invitations.router.js";
+import { registerBillingRoutes } from "./modules/billing/billing.router.js";
 import { registerShopRoutes } from "./modules/shops/shops.router.js";
 import { registerMaterialRoutes } from "./modules/materials/materials.router.js";
 import { registerCutterRoutes } from "./modules/cutters/cutters.router.js";
 import { registerMachineRoutes } from "./modules/machines/machines.router.js";
 import { registerAssemblyRoutes } from "./modules/assemblies/assemblies.router.js";
+import { registerRecommendationRoutes } from "./modules/recommendations/recommendations.router.js";
+import { registerRecipeRoutes } from "./modules/recipes/recipes.router.js";
+import { registerCutLogRoutes } from "./modules/cut-logs/cut-logs.router.js";
+import { registerLadderRoutes } from "./modules/ladders/ladders.router.js";
+import { registerShopExportRoutes } from "./modules/shop-export/shop-export.router.js";
+import { registerVibrationRoutes } from "./modules/vibration/vibration.routes.js";
+import { LocalDirectoryStorage } from "./storage/local-directory-storage.js";
 
-export function createShopScopedRouter(): Router {
+export function createShopScopedRouter(config: AppConfig = readConfig()): Router {
   const router = Router({ mergeParams: true });
   registerShopRoutes(router);
   registerMemberRoutes(router);
+  registerInvitationRoutes(router, config);
+  registerBillingRoutes(router, config);
   registerMaterialRoutes(router);
   registerCutterRoutes(router);
   registerMachineRoutes(router);
   registerAssemblyRoutes(router);
+  registerRecommendationRoutes(router);
+  registerRecipeRoutes(router);
+  registerCutLogRoutes(router, { storage: new LocalDirectoryStorage(config.storageDir), photoMaxBytes: config.photoMaxBytes });
+  registerLadderRoutes(router);
+  registerShopExportRoutes(router);
+  registerVibrationRoutes(router, { storageDir: config.storageDir });
   return router;
 }
 

@@ -170,6 +170,8 @@ describe("planRecipe and summarizeRecommendation", () => {
     expect(summary.feedMmPerMin).toBeCloseTo(summary.chipLoadMm * 2 * summary.rpm, 6);
     // MRR = ap·ae·vf (SME formulas, domain-reference §4), with the depths the engine used.
     expect(summary.materialRemovalRateMm3PerMin).toBeCloseTo(rec.axialDepthMm * rec.radialDepthMm * rec.feedMmPerMin, 6);
+    expect(summary.axialDepthMm).toBe(rec.axialDepthMm);
+    expect(summary.radialDepthMm).toBe(rec.radialDepthMm);
     const binding = rec.limits.find((l) => l.binding);
     expect(summary.bindingLimit).toBe(binding ? binding.label : null);
     expect(summary.stable).toBe(rec.stability.checked ? rec.stability.stable : null);

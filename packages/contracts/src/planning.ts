@@ -238,6 +238,8 @@ export function summarizeRecommendation(rec: Recommendation): RecipeResultSummar
     materialRemovalRateMm3PerMin: rec.materialRemovalRateMm3PerMin,
     powerW: rec.powerW,
     totalDeflectionMm: rec.totalDeflectionMm,
+    axialDepthMm: rec.axialDepthMm,
+    radialDepthMm: rec.radialDepthMm,
     bindingLimit: binding ? binding.label : null,
     stable: rec.stability.checked ? rec.stability.stable : null,
     warnings: rec.warnings.map((w) => w.message),

@@ -35,6 +35,9 @@ export const recipeResultSummarySchema = z.object({
   materialRemovalRateMm3PerMin: z.number(),
   powerW: z.number(),
   totalDeflectionMm: z.number(),
+  /** Depths the engine used [mm]: may be less than asked (then take more passes). Absent in results saved before they were stored. */
+  axialDepthMm: z.number().optional(),
+  radialDepthMm: z.number().optional(),
   bindingLimit: z.string().nullable(),
   stable: z.boolean().nullable(),
   warnings: z.array(z.string()),

@@ -19,6 +19,8 @@ export const FEED_SPAN = { low: 0.6, high: 1.4 } as const;
 export const DEPTH_SPAN = { low: 0.5, high: 2 } as const;
 /** Rungs closer than this (relative) to a kept rung are dropped as duplicates [-]. */
 const DISTINCT = 0.01;
+/** Candidates tried per rung wanted: the engine may move several onto one value. */
+const OVERSAMPLE = 3;
 
 const fmt = (v: number): string => String(Number(v.toPrecision(4)));
 
@@ -53,9 +55,10 @@ function stepped(parameter: LadderParameter, rec: Recommendation): number {
 
 /**
  * Runs each candidate through the engine, keeps the safe ones, drops near-duplicates (the engine
- * may move or cap two candidates onto the same value) and numbers the rest from low to high.
+ * may move or cap two candidates onto the same value, e.g. off a machine mode), and picks `count`
+ * of the rest spread evenly from low to high, numbered in that order.
  */
-function collect(base: PlanningInput, parameter: LadderParameter, candidates: RecipeParams[]): { rungs: LadderRung[]; rubbing: number } {
+function collect(base: PlanningInput, parameter: LadderParameter, candidates: RecipeParams[], count: number): { rungs: LadderRung[]; rubbing: number } {
   const kept: Array<{ value: number; params: RecipeParams; rec: Recommendation }> = [];
   for (const params of candidates) {
     const rec = planRecipe({ ...base, params });
@@ -74,26 +77,36 @@ function collect(base: PlanningInput, parameter: LadderParameter, candidates: Re
     kept.push({ value: stepped(parameter, check), params: pinned, rec: check });
   }
   kept.sort((a, b) => a.value - b.value);
+  const chosen = pickEvenly(kept, count);
   return {
-    rungs: kept.map((k, i) => rungOf(i, k.params, k.rec)),
-    rubbing: kept.filter((k) => k.rec.warnings.some((w) => w.id === "rubbing")).length,
+    rungs: chosen.map((k, i) => rungOf(i, k.params, k.rec)),
+    rubbing: chosen.filter((k) => k.rec.warnings.some((w) => w.id === "rubbing")).length,
   };
 }
 
 /**
  * Plans a ladder of `count` rungs for the recipe described by `base` (its current parameters).
+ * Every rung starts from what the engine actually gives the recipe now (its speed, chip and depth,
+ * which may be less than asked) and changes only the stepped parameter:
  *  - rpm: from the lowest to the highest speed the spindle, the cutter maker and the rim-speed rule
  *    allow, narrowed to the material's cutting-speed range where that range overlaps; dial spindles
- *    use their dial settings. The chip load per tooth is kept (the feed follows the speed).
- *  - feed: chip load from 60 % to 140 % of the recipe's, at the recipe's speed, the top capped where
- *    the feed, power or deflection ceiling starts to reduce it.
- *  - depth: axial depth from half the recipe's to twice it (within the flute length), the top capped
- *    where power, deflection or chatter stability starts to reduce it.
+ *    use their dial settings. The chip per tooth is kept (the feed follows the speed).
+ *  - feed: chip per tooth from 60 % to 140 % of the recipe's, the top capped where the feed, power
+ *    or deflection ceiling starts to reduce it.
+ *  - depth: axial depth from half the recipe's up to twice it (within the flute length), the top
+ *    capped where power, deflection or chatter stability would take chip or depth off.
  * @throws RecommendInputError from the engine when the recipe itself cannot be computed
  */
 export function planLadder(base: PlanningInput, parameter: LadderParameter, count: number): LadderPlan {
   const baseRec = planRecipe(base);
-  const p = base.params;
+  // The recipe as the engine runs it now; each ladder varies one of these three.
+  const held: RecipeParams = {
+    ...base.params,
+    rpmOverride: baseRec.rpm,
+    chipLoadOverrideMm: baseRec.maxChipThicknessMm,
+    axialDepthMm: baseRec.axialDepthMm,
+  };
+  const run = (params: RecipeParams): Recommendation => planRecipe({ ...base, params });
 
   if (parameter === "rpm") {
     const ceilings = baseRec.limits.filter((l) => l.unit === "rpm" && l.kind === "max").map((l) => l.ceiling);
@@ -103,51 +116,61 @@ export function planLadder(base: PlanningInput, parameter: LadderParameter, coun
     const toRpm = (vc: number): number => (1000 * vc) / (Math.PI * baseRec.effectiveDiameterMm);
     let lo = Math.max(floor, toRpm(range.minMPerMin));
     let top = Math.min(hi, toRpm(range.maxMPerMin));
-    let note = `Spindle speed from ${fmt(lo)} to ${fmt(top)} rpm: the material's cutting-speed range within the spindle's and the cutter's limits; chip load per tooth kept.`;
+    let note = `Spindle speed from ${fmt(lo)} to ${fmt(top)} rpm: the material's cutting-speed range within the spindle's and the cutter's limits; chip per tooth (${fmt(baseRec.maxChipThicknessMm)} mm) and depth (${fmt(baseRec.axialDepthMm)} mm) kept.`;
     if (!(top > lo)) {
       lo = floor;
       top = hi;
-      note = `Spindle speed across the spindle's usable range, ${fmt(lo)} to ${fmt(top)} rpm (the material's cutting-speed range lies outside it); chip load per tooth kept.`;
+      note = `Spindle speed across the spindle's usable range, ${fmt(lo)} to ${fmt(top)} rpm (the material's cutting-speed range lies outside it); chip per tooth and depth kept.`;
     }
     const dials = base.machine.spindle.dialSettings.map((d) => d.rpm).filter((n) => n >= lo * (1 - 1e-9) && n <= top * (1 + 1e-9));
-    const speeds = dials.length > 0 ? pickEvenly([...new Set(dials)].sort((a, b) => a - b), count) : geometricSteps(lo, top, count);
-    if (dials.length > 0) note = `Dial settings from ${fmt(Math.min(...speeds))} to ${fmt(Math.max(...speeds))} rpm; chip load per tooth kept.`;
-    const chip = p.chipLoadOverrideMm ?? baseRec.chipLoadMm;
-    const { rungs } = collect(base, "rpm", speeds.map((n) => ({ ...p, rpmOverride: n, chipLoadOverrideMm: chip })));
-    return { rungs, window: windowOf(rungs, (r) => r.params.rpm, "rpm"), note: withMoved(note, rungs.length, speeds.length) };
+    const speeds = dials.length > 0 ? [...new Set(dials)].sort((a, b) => a - b) : geometricSteps(lo, top, OVERSAMPLE * count);
+    if (dials.length > 0) note = `Dial settings from ${fmt(Math.min(...speeds))} to ${fmt(Math.max(...speeds))} rpm; chip per tooth and depth kept.`;
+    const { rungs } = collect(base, "rpm", speeds.map((n) => ({ ...held, rpmOverride: n })), count);
+    return { rungs, window: windowOf(rungs, (r) => r.params.rpm, "rpm"), note: withFewer(note, rungs.length, count) };
   }
 
   if (parameter === "feed") {
-    const nominal = p.chipLoadOverrideMm ?? baseRec.chipLoadMm;
-    const pinnedSpeed = { ...p, rpmOverride: baseRec.rpm };
-    const lo = FEED_SPAN.low * nominal;
-    let hi = FEED_SPAN.high * nominal;
-    const top = planRecipe({ ...base, params: { ...pinnedSpeed, chipLoadOverrideMm: hi } });
-    // The engine reduced the chip at the top: the ceilings end the window there.
-    if (top.maxChipThicknessMm < hi * (1 - 1e-6)) hi = Math.max(top.maxChipThicknessMm, lo * 1.05);
-    const chips = geometricSteps(lo, hi, count);
-    const { rungs, rubbing } = collect(base, "feed", chips.map((c) => ({ ...pinnedSpeed, chipLoadOverrideMm: c })));
+    const chip = baseRec.maxChipThicknessMm;
+    const lo = FEED_SPAN.low * chip;
+    let hi = FEED_SPAN.high * chip;
+    const top = run({ ...held, chipLoadOverrideMm: hi });
+    // The engine reduced the chip at the top: a ceiling ends the window there.
+    if (top.maxChipThicknessMm < hi * (1 - 1e-6)) hi = Math.max(top.maxChipThicknessMm, chip);
+    const chips = geometricSteps(lo, hi, OVERSAMPLE * count);
+    const { rungs, rubbing } = collect(base, "feed", chips.map((c) => ({ ...held, chipLoadOverrideMm: c })), count);
     const note =
-      `Chip load from ${fmt(lo)} to ${fmt(hi)} mm per tooth at ${fmt(baseRec.rpm)} rpm (${FEED_SPAN.low * 100}–${FEED_SPAN.high * 100} % of the recipe's, ` +
-      `capped where a ceiling reduces it).` +
+      `Chip per tooth from ${fmt(lo)} to ${fmt(hi)} mm at ${fmt(baseRec.rpm)} rpm and ${fmt(baseRec.axialDepthMm)} mm deep ` +
+      `(${FEED_SPAN.low * 100} % of the recipe's chip up to ${FEED_SPAN.high * 100} % or where a ceiling reduces it).` +
       (rubbing > 0 ? ` ${rubbing} low rung${rubbing > 1 ? "s" : ""} may rub rather than cut: watch for heat.` : "");
-    return { rungs, window: windowOf(rungs, (r) => r.chipLoadMm ?? 0, "mm"), note: withMoved(note, rungs.length, chips.length) };
+    return { rungs, window: windowOf(rungs, (r) => r.params.feedMmPerMin, "mm/min"), note: withFewer(note, rungs.length, count) };
   }
 
   // depth
+  const depth = baseRec.axialDepthMm;
   const fluteLimit = base.operation === "drill" ? Number.POSITIVE_INFINITY : base.cutter.fluteLengthMm;
-  const pinned = { ...p, rpmOverride: baseRec.rpm, chipLoadOverrideMm: p.chipLoadOverrideMm ?? baseRec.chipLoadMm };
-  const lo = DEPTH_SPAN.low * p.axialDepthMm;
-  let hi = Math.min(DEPTH_SPAN.high * p.axialDepthMm, fluteLimit);
-  const top = planRecipe({ ...base, params: { ...pinned, axialDepthMm: hi } });
-  // The engine took depth (or chip) off at the top: the window ends where the cut was still whole.
-  if (top.axialDepthMm < hi * (1 - 1e-6) || top.compensatedChipLoadMm < baseRec.compensatedChipLoadMm * (1 - 1e-6)) {
-    hi = Math.max(Math.min(top.axialDepthMm, hi), baseRec.axialDepthMm, lo * 1.05);
+  const lo = DEPTH_SPAN.low * depth;
+  const whole = (d: number): boolean => {
+    const rec = run({ ...held, axialDepthMm: d });
+    return safe(rec) && rec.axialDepthMm >= d * (1 - 1e-6) && rec.compensatedChipLoadMm >= baseRec.compensatedChipLoadMm * (1 - 1e-6);
+  };
+  // Deepest cut (up to twice the recipe's) the engine takes whole, at the same speed and chip: bisection.
+  let hi = Math.min(DEPTH_SPAN.high * depth, fluteLimit);
+  if (!whole(hi)) {
+    let ok = depth;
+    let bad = hi;
+    for (let i = 0; i < 14 && bad - ok > 1e-4 * depth; i++) {
+      const mid = (ok + bad) / 2;
+      if (whole(mid)) ok = mid;
+      else bad = mid;
+    }
+    hi = ok;
   }
-  const depths = geometricSteps(lo, hi, count);
-  const { rungs } = collect(base, "depth", depths.map((d) => ({ ...pinned, axialDepthMm: d })));
-  const note = `Axial depth from ${fmt(lo)} to ${fmt(hi)} mm at ${fmt(baseRec.rpm)} rpm (half the recipe's depth up to where power, deflection or chatter stability would reduce it).`;
-  return { rungs, window: windowOf(rungs, (r) => r.params.axialDepthMm, "mm"), note: withMoved(note, rungs.length, depths.length) };
+  const depths = geometricSteps(lo, hi, OVERSAMPLE * count);
+  const { rungs } = collect(base, "depth", depths.map((d) => ({ ...held, axialDepthMm: d })), count);
+  const note =
+    `Axial depth from ${fmt(lo)} to ${fmt(hi)} mm at ${fmt(baseRec.rpm)} rpm and ${fmt(baseRec.maxChipThicknessMm)} mm chip ` +
+    `(half the recipe's depth up to twice it, or to where power, deflection or chatter stability would reduce the cut).`;
+  return { rungs, window: windowOf(rungs, (r) => r.params.axialDepthMm, "mm"), note: withFewer(note, rungs.length, count) };
 }
 
 function pickEvenly<T>(values: T[], count: number): T[] {
@@ -160,8 +183,8 @@ function windowOf(rungs: LadderRung[], value: (r: LadderRung) => number, unit: s
   return { min: values.length ? Math.min(...values) : 0, max: values.length ? Math.max(...values) : 0, unit };
 }
 
-function withMoved(note: string, kept: number, asked: number): string {
-  return kept < asked
-    ? `${note} ${asked - kept} candidate${asked - kept > 1 ? "s" : ""} fell on the same value after the engine moved or capped ${asked - kept > 1 ? "them" : "it"} (modes, avoided bands or ceilings), or broke a ceiling, and ${asked - kept > 1 ? "were" : "was"} left out.`
+function withFewer(note: string, got: number, wanted: number): string {
+  return got < wanted
+    ? `${note} Only ${got} distinct safe rung${got === 1 ? "" : "s"} fit this window: the engine moved or capped the others onto the same values (machine modes, avoided bands or ceilings).`
     : note;
 }

@@ -13,7 +13,7 @@ async function run(sql: string, replacements: Record<string, unknown>): Promise<
 }
 
 const axis = (maxFeed: number, stiffness: number, backlash = 0) => ({
-  drive: "ball_screw",
+  drive: "ball_screw" as const,
   travelMm: 600,
   maxFeedMmPerMin: maxFeed,
   accelerationMmPerS2: null,

@@ -43,6 +43,8 @@ export interface Actor {
 }
 
 const notFound = () => AppError.notFound("Recipe not found.");
+/** "a draft", "an approved"… */
+const withArticle = (word: string): string => `${/^[aeiou]/.test(word) ? "an" : "a"} ${word}`;
 
 /** Operators work from approved recipes only; everyone else sees every status. */
 export function canSeeStatus(role: Role, status: RecipeStatus): boolean {
@@ -262,12 +264,15 @@ export async function transitionRecipe(shopId: string, id: string, to: RecipeSta
     if (!current || !canSeeStatus(actor.role, current.status)) throw notFound();
     if (current.status === to) throw AppError.conflict(`The recipe is already ${to}.`);
     const rule = RULES[current.status]?.[to];
-    if (!rule) throw AppError.conflict(`A ${current.status} recipe cannot become ${to} (${LIFE}).`, { to: `Not possible from ${current.status}.` });
+    if (!rule) {
+      const subject = withArticle(current.status);
+      throw AppError.conflict(`${subject.charAt(0).toUpperCase()}${subject.slice(1)} recipe cannot become ${to} (${LIFE}).`, { to: `Not possible from ${current.status}.` });
+    }
     if (!roleAtLeast(actor.role, rule.role)) {
       throw AppError.forbidden(
         rule.role === "tooling_manager"
-          ? `Only a tooling manager or owner can make a ${current.status} recipe ${to}.`
-          : `Only a programmer, tooling manager or owner can make a ${current.status} recipe ${to}.`,
+          ? `Only a tooling manager or owner can make ${withArticle(current.status)} recipe ${to}.`
+          : `Only a programmer, tooling manager or owner can make ${withArticle(current.status)} recipe ${to}.`,
       );
     }
     if (rule.needsComment && comment.trim() === "") throw AppError.validation("A comment is required.", { comment: rule.needsComment });
@@ -301,7 +306,7 @@ function requireDeleteRight(status: RecipeStatus, actor: Actor): void {
     throw AppError.forbidden(
       least === "programmer"
         ? "Only a programmer, tooling manager or owner can delete recipes."
-        : `Only a tooling manager or owner can delete a ${status} recipe.`,
+        : `Only a tooling manager or owner can delete ${withArticle(status)} recipe.`,
     );
   }
 }

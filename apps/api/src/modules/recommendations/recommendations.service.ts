@@ -49,16 +49,37 @@ function requestField(enginePath: string): string {
   return "assemblyId";
 }
 
-const subject: Record<string, string> = { cutter: "Cutter", machine: "Machine", material: "Material" };
+const LABELS: Record<string, string> = {
+  "engagement.axialDepthMm": "Axial depth",
+  "engagement.radialDepthMm": "Radial depth",
+  "preferences.cuttingSpeedMPerMin": "Chosen spindle speed",
+  "preferences.chipLoadMm": "Chosen chip load",
+  workPosition: "Work position",
+  millingDirection: "Milling direction",
+  operation: "Operation",
+};
+const SUBJECTS: Record<string, string> = { cutter: "Cutter", machine: "Machine", material: "Material" };
 
-/** Turns the engine's input errors into field errors of the request. */
+/** "cutter.runoutTirMm" → "Cutter runout tir"; "machine.spindle.maxRpm" → "Machine spindle max". */
+function labelOf(path: string): string {
+  if (LABELS[path]) return LABELS[path];
+  const [head = "", ...rest] = path.split(".");
+  const words = rest
+    .join(" ")
+    .replace(/\[(\d+)\]/g, " $1")
+    .replace(/(Mm|Deg|Hz|Rpm|GPa|NPerMm2?|MPerMin|JPerMm3|W)$/g, "")
+    .replace(/([a-z])([A-Z])/g, "$1 $2")
+    .toLowerCase()
+    .trim();
+  return `${SUBJECTS[head] ?? head}${words ? ` ${words}` : ""}`;
+}
+
+/** Turns the engine's input errors into field errors of the request ("Axial depth is deeper than…"). */
 export function toValidationError(error: RecommendInputError): AppError {
   const fields: Record<string, string> = {};
   for (const [path, message] of Object.entries(error.fields)) {
     const key = requestField(path);
-    const head = path.split(".")[0] ?? "";
-    const text = subject[head] ? `${subject[head]} ${path.slice(head.length + 1)} ${message}` : message;
-    const sentence = text.charAt(0).toUpperCase() + text.slice(1);
+    const sentence = `${labelOf(path)} ${message}`;
     fields[key] = fields[key] ? `${fields[key]}; ${sentence}` : sentence;
   }
   return AppError.validation("These settings cannot be computed.", fields);
