@@ -7,8 +7,6 @@
 import { Router } from "express";
 import { readConfig, type AppConfig } from "./config/env.js";
 import { registerMemberRoutes } from "./modules/members/members.router.js";
-import { registerInvitationRoutes } from "./modules/invitations/invitations.router.js";
-import { registerBillingRoutes } from "./modules/billing/billing.router.js";
 import { registerShopRoutes } from "./modules/shops/shops.router.js";
 import { registerMaterialRoutes } from "./modules/materials/materials.router.js";
 import { registerCutterRoutes } from "./modules/cutters/cutters.router.js";
@@ -19,15 +17,12 @@ import { registerRecipeRoutes } from "./modules/recipes/recipes.router.js";
 import { registerCutLogRoutes } from "./modules/cut-logs/cut-logs.router.js";
 import { registerLadderRoutes } from "./modules/ladders/ladders.router.js";
 import { registerShopExportRoutes } from "./modules/shop-export/shop-export.router.js";
-import { registerVibrationRoutes } from "./modules/vibration/vibration.routes.js";
 import { LocalDirectoryStorage } from "./storage/local-directory-storage.js";
 
 export function createShopScopedRouter(config: AppConfig = readConfig()): Router {
   const router = Router({ mergeParams: true });
   registerShopRoutes(router);
   registerMemberRoutes(router);
-  registerInvitationRoutes(router, config);
-  registerBillingRoutes(router, config);
   registerMaterialRoutes(router);
   registerCutterRoutes(router);
   registerMachineRoutes(router);
@@ -37,7 +32,6 @@ export function createShopScopedRouter(config: AppConfig = readConfig()): Router
   registerCutLogRoutes(router, { storage: new LocalDirectoryStorage(config.storageDir), photoMaxBytes: config.photoMaxBytes });
   registerLadderRoutes(router);
   registerShopExportRoutes(router);
-  registerVibrationRoutes(router, { storageDir: config.storageDir });
   return router;
 }
 
