@@ -14,6 +14,10 @@ import { createMeRouter } from "./modules/me/me.router.js";
 import { requireShopRole } from "./modules/shops/require-shop-role.js";
 import { createShopsRouter } from "./modules/shops/shops.router.js";
 import { createShopScopedRouter } from "./routes.js";
+import { createBillingWebhookRouter, requireWritableShop } from "./modules/billing/billing.router.js";
+import { createPublicInvitationRouter } from "./modules/invitations/invitations.router.js";
+import { createDevMailRouter } from "./modules/mail/dev-mail.router.js";
+import { createPasswordResetRouter } from "./modules/password-reset/password-reset.router.js";
 
 export interface AppOptions {
   /** Prefix of this app's rate-limit counters in the shared table (tests isolate theirs). */
@@ -39,16 +43,22 @@ export function createApp(config: AppConfig, options: AppOptions = {}): Express 
     next();
   });
   api.use(rejectCrossSite(config.appOrigin));
+  // The payment provider's webhook is verified over its raw bytes: before the JSON parser.
+  api.use("/billing/webhook", createBillingWebhookRouter(config));
   api.use(requireJsonBody);
   api.use(express.json({ limit: "1mb", strict: true }));
   api.use(cookieParser());
 
   const session = requireSession(config);
   api.use("/health", createHealthRouter());
+  const limits = options.rateLimitPrefix ? { rateLimitPrefix: options.rateLimitPrefix } : {};
+  api.use("/auth/password-reset", createPasswordResetRouter(config, limits));
+  api.use("/invitations", createPublicInvitationRouter(config, limits));
+  if (!config.isProduction && config.mail.captureDir) api.use("/dev/mail", createDevMailRouter(config.mail.captureDir));
   api.use("/auth", createAuthRouter(config, options.rateLimitPrefix ? { rateLimitPrefix: options.rateLimitPrefix } : {}));
   api.use("/me", session, createMeRouter());
   // Shop-scoped first: every /api/shops/:shopId/... request passes the membership check.
-  api.use("/shops/:shopId", session, requireShopRole("operator"), createShopScopedRouter(config));
+  api.use("/shops/:shopId", session, requireShopRole("operator"), requireWritableShop, createShopScopedRouter(config));
   api.use("/shops", session, createShopsRouter());
   api.use(apiNotFound);
 

@@ -7,6 +7,8 @@
 import { Router } from "express";
 import { readConfig, type AppConfig } from "./config/env.js";
 import { registerMemberRoutes } from "./modules/members/members.router.js";
+import { registerInvitationRoutes } from "./modules/invitations/invitations.router.js";
+import { registerBillingRoutes } from "./modules/billing/billing.router.js";
 import { registerShopRoutes } from "./modules/shops/shops.router.js";
 import { registerMaterialRoutes } from "./modules/materials/materials.router.js";
 import { registerCutterRoutes } from "./modules/cutters/cutters.router.js";
@@ -23,6 +25,8 @@ export function createShopScopedRouter(config: AppConfig = readConfig()): Router
   const router = Router({ mergeParams: true });
   registerShopRoutes(router);
   registerMemberRoutes(router);
+  registerInvitationRoutes(router, config);
+  registerBillingRoutes(router, config);
   registerMaterialRoutes(router);
   registerCutterRoutes(router);
   registerMachineRoutes(router);

@@ -7,4 +7,6 @@ export * from "./members.js";
 export * from "./library.js";
 export * from "./recipes.js";
 export * from "./planning.js";
+export * from "./team.js";
+export * from "./billing.js";
 export * from "./vibration.js";

@@ -39,6 +39,21 @@ export interface AppConfig {
   storageDir: string;
   /** Largest accepted photo upload [bytes]. */
   photoMaxBytes: number;
+  /** Outgoing e-mail (invitations, password resets). */
+  mail: MailConfig;
+  /** Payments through the provider's SDK (the local fake in development and tests). */
+  billing: BillingConfig;
+  /** Limits of the team features, counted like `rateLimits`. */
+  teamRateLimits: {
+    /** Password-reset requests per client IP. */
+    passwordResetPerIp: RateLimitRule;
+    /** Password-reset requests per e-mail address. */
+    passwordResetPerAccount: RateLimitRule;
+    /** Invitations sent (or re-sent) per shop. */
+    invitationsPerShop: RateLimitRule;
+    /** Invitation acceptances per client IP. */
+    invitationAcceptPerIp: RateLimitRule;
+  };
   rateLimits: {
     /** Failed sign-in attempts per client IP. */
     loginPerIp: RateLimitRule;
@@ -48,6 +63,44 @@ export interface AppConfig {
     signupPerIp: RateLimitRule;
   };
 }
+
+export interface MailConfig {
+  smtp: {
+    host: string;
+    port: number;
+    /** TLS from the first byte (port 465); otherwise STARTTLS when the server offers it. */
+    secure: boolean;
+    /** Never upgrade with STARTTLS: only for a capture server on loopback. */
+    ignoreTls: boolean;
+    user: string | undefined;
+    password: string | undefined;
+  };
+  /** From header of every message, e.g. `Ringdown <no-reply@example.com>`. */
+  from: string;
+  /**
+   * Folder the local capture server writes messages to; the development mail page reads it.
+   * Null in production, where the page does not exist.
+   */
+  captureDir: string | null;
+}
+
+export interface BillingConfig {
+  /** False when no secret key is configured: the billing routes answer 503, plan limits still hold. */
+  enabled: boolean;
+  secretKey: string;
+  webhookSecret: string;
+  /** Base URL of the provider's API; null = the SDK's default (the real service). */
+  apiUrl: URL | null;
+  /** A price id to bill seats with; when unset, found (or created) by `seatPriceLookupKey`. */
+  seatPriceId: string | undefined;
+  seatPriceLookupKey: string;
+  /** Price per seat per month used when the price has to be created [minor currency unit]. */
+  seatAmountMinor: number;
+  currency: string;
+}
+
+const LOCAL_FAKE_SECRET_KEY = "sk_test_ringdown_local_fake";
+const LOCAL_FAKE_WEBHOOK_SECRET = "whsec_ringdown_local_fake_webhook_secret";
 
 const positiveInt = (fallback: number) => z.coerce.number<string>().int().positive().default(fallback);
 const minutes = (n: number) => n * 60_000;
@@ -69,6 +122,30 @@ const envSchema = z
     TRUST_PROXY: z.coerce.number<string>().int().min(0).max(10).default(0),
     STORAGE_DIR: z.string().trim().min(1).default(".data/storage"),
     PHOTO_MAX_MB: z.coerce.number<string>().positive().max(50).default(8),
+    SMTP_HOST: z.string().trim().min(1).default("127.0.0.1"),
+    SMTP_PORT: z.coerce.number<string>().int().min(1).max(65535).optional(),
+    SMTP_SECURE: z.stringbool().default(false),
+    SMTP_IGNORE_TLS: z.stringbool().optional(),
+    SMTP_USER: z.string().optional(),
+    SMTP_PASSWORD: z.string().optional(),
+    MAIL_FROM: z.string().trim().min(3).default("Ringdown <no-reply@ringdown.localhost>"),
+    MAIL_CAPTURE_DIR: z.string().trim().min(1).optional(),
+    STRIPE_SECRET_KEY: z.string().trim().regex(/^(sk|rk)_(test|live)_/, "must be a secret key (sk_test_… or sk_live_…)").optional(),
+    STRIPE_WEBHOOK_SECRET: z.string().trim().regex(/^whsec_/, "must start with whsec_").optional(),
+    STRIPE_API_URL: z.url({ protocol: /^https?$/ }).optional(),
+    BILLING_SEAT_PRICE_ID: z.string().trim().min(1).optional(),
+    BILLING_SEAT_PRICE_LOOKUP_KEY: z.string().trim().min(1).default("ringdown_team_seat_monthly"),
+    BILLING_SEAT_AMOUNT_MINOR: z.coerce.number<string>().int().min(0).default(1900),
+    BILLING_CURRENCY: z.string().trim().regex(/^[a-z]{3}$/i, "must be a 3-letter ISO currency code").default("eur"),
+    // Ports the local stand-ins listen on (scripts start them); used for the defaults above.
+    RINGDOWN_SMTP_DEV_PORT: z.coerce.number<string>().int().min(1).max(65535).default(2525),
+    RINGDOWN_SMTP_TEST_PORT: z.coerce.number<string>().int().min(1).max(65535).default(2526),
+    RINGDOWN_PAYMENTS_DEV_PORT: z.coerce.number<string>().int().min(1).max(65535).default(12111),
+    RINGDOWN_PAYMENTS_TEST_PORT: z.coerce.number<string>().int().min(1).max(65535).default(12112),
+    PASSWORD_RESET_MAX_PER_IP: positiveInt(20),
+    PASSWORD_RESET_MAX_PER_ACCOUNT: positiveInt(5),
+    INVITATIONS_MAX_PER_SHOP: positiveInt(50),
+    INVITATION_ACCEPT_MAX_PER_IP: positiveInt(30),
     LOGIN_MAX_PER_IP: positiveInt(30),
     LOGIN_MAX_PER_ACCOUNT: positiveInt(10),
     SIGNUP_MAX_PER_IP: positiveInt(20),
@@ -81,6 +158,9 @@ const envSchema = z
     if (!env.JWT_SECRET) ctx.addIssue({ code: "custom", path: ["JWT_SECRET"], message: "is required in production" });
     if (!env.DATABASE_URL) ctx.addIssue({ code: "custom", path: ["DATABASE_URL"], message: "is required in production" });
     if (!env.APP_URL) ctx.addIssue({ code: "custom", path: ["APP_URL"], message: "is required in production" });
+    if (env.STRIPE_SECRET_KEY && !env.STRIPE_WEBHOOK_SECRET) {
+      ctx.addIssue({ code: "custom", path: ["STRIPE_WEBHOOK_SECRET"], message: "is required when STRIPE_SECRET_KEY is set" });
+    }
   });
 
 export class ConfigError extends Error {}
@@ -96,6 +176,13 @@ export function parseConfig(env: Record<string, string | undefined>): AppConfig 
   }
   const e = result.data;
   const isProduction = e.NODE_ENV === "production";
+  const isTest = e.NODE_ENV === "test";
+  // Outside production, e-mail and payments default to the local stand-ins (scripts/start.sh and
+  // scripts/test.sh start them on loopback); production uses only what .env says.
+  const localSmtpPort = isTest ? e.RINGDOWN_SMTP_TEST_PORT : e.RINGDOWN_SMTP_DEV_PORT;
+  const localPaymentsUrl = `http://127.0.0.1:${isTest ? e.RINGDOWN_PAYMENTS_TEST_PORT : e.RINGDOWN_PAYMENTS_DEV_PORT}`;
+  const secretKey = e.STRIPE_SECRET_KEY ?? (isProduction ? undefined : LOCAL_FAKE_SECRET_KEY);
+  const apiUrl = e.STRIPE_API_URL ?? (isProduction ? undefined : localPaymentsUrl);
   return {
     nodeEnv: e.NODE_ENV,
     isProduction,
@@ -114,6 +201,36 @@ export function parseConfig(env: Record<string, string | undefined>): AppConfig 
     trustProxy: e.TRUST_PROXY,
     storageDir: path.resolve(repoRoot, e.STORAGE_DIR),
     photoMaxBytes: Math.round(e.PHOTO_MAX_MB * 1024 * 1024),
+    mail: {
+      smtp: {
+        host: e.SMTP_HOST,
+        port: e.SMTP_PORT ?? (isProduction ? (e.SMTP_SECURE ? 465 : 587) : localSmtpPort),
+        secure: e.SMTP_SECURE,
+        ignoreTls: e.SMTP_IGNORE_TLS ?? !isProduction,
+        user: e.SMTP_USER,
+        password: e.SMTP_PASSWORD,
+      },
+      from: e.MAIL_FROM,
+      captureDir: isProduction
+        ? null
+        : path.resolve(repoRoot, e.MAIL_CAPTURE_DIR ?? `.data/mail-capture/${isTest ? "test" : "dev"}`),
+    },
+    billing: {
+      enabled: secretKey !== undefined,
+      secretKey: secretKey ?? "",
+      webhookSecret: e.STRIPE_WEBHOOK_SECRET ?? (isProduction ? "" : LOCAL_FAKE_WEBHOOK_SECRET),
+      apiUrl: apiUrl ? new URL(apiUrl) : null,
+      seatPriceId: e.BILLING_SEAT_PRICE_ID,
+      seatPriceLookupKey: e.BILLING_SEAT_PRICE_LOOKUP_KEY,
+      seatAmountMinor: e.BILLING_SEAT_AMOUNT_MINOR,
+      currency: e.BILLING_CURRENCY.toLowerCase(),
+    },
+    teamRateLimits: {
+      passwordResetPerIp: { limit: e.PASSWORD_RESET_MAX_PER_IP, windowMs: minutes(60) },
+      passwordResetPerAccount: { limit: e.PASSWORD_RESET_MAX_PER_ACCOUNT, windowMs: minutes(60) },
+      invitationsPerShop: { limit: e.INVITATIONS_MAX_PER_SHOP, windowMs: minutes(60) },
+      invitationAcceptPerIp: { limit: e.INVITATION_ACCEPT_MAX_PER_IP, windowMs: minutes(60) },
+    },
     rateLimits: {
       loginPerIp: { limit: e.LOGIN_MAX_PER_IP, windowMs: minutes(15) },
       loginPerAccount: { limit: e.LOGIN_MAX_PER_ACCOUNT, windowMs: minutes(15) },

@@ -6,6 +6,7 @@ import * as m0002 from "./migrations/0002-sessions-and-rate-limits.js";
 import * as m0003 from "./migrations/0003-library-and-recipes.js";
 import { syncGlobalMaterials } from "../modules/materials/global-materials.sync.js";
 import * as m0010 from "./migrations/0010-recipe-ladders-and-list-indexes.js";
+import * as m0020 from "./migrations/0020-team-and-billing.js";
 
 type Migration = { up: MigrationFn<Sequelize>; down: MigrationFn<Sequelize> };
 
@@ -15,6 +16,7 @@ const migrations: Array<{ name: string } & Migration> = [
   { name: "0002-sessions-and-rate-limits", ...m0002 },
   { name: "0003-library-and-recipes", ...m0003 },
   { name: "0010-recipe-ladders-and-list-indexes", ...m0010 },
+  { name: "0020-team-and-billing", ...m0020 },
 ];
 
 // Any constant shared by every API instance; serialises concurrent start-ups on one database.

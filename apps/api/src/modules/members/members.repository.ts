@@ -2,6 +2,7 @@ import type { Role } from "@ringdown/contracts";
 import { literal } from "sequelize";
 import { MembershipModel } from "../shops/membership.model.js";
 import { UserModel } from "../users/user.model.js";
+import type { Tx } from "../../db/sequelize.js";
 
 export interface MemberRecord {
   userId: string;
@@ -34,4 +35,28 @@ export async function listMembers(
       return { userId: row.userId, name: row.user.name, email: row.user.email, role: row.role };
     }),
   };
+}
+
+/** One member of the shop, or null. */
+export async function findMember(shopId: string, userId: string, tx?: Tx): Promise<MemberRecord | null> {
+  const row = await MembershipModel.findOne({
+    where: { shopId, userId },
+    include: [{ model: UserModel, as: "user", attributes: ["id", "name", "email"], required: true }],
+    transaction: tx ?? null,
+  });
+  if (!row?.user) return null;
+  return { userId: row.userId, name: row.user.name, email: row.user.email, role: row.role };
+}
+
+export async function countOwners(shopId: string, tx?: Tx): Promise<number> {
+  return MembershipModel.count({ where: { shopId, role: "owner" }, transaction: tx ?? null });
+}
+
+export async function setMemberRole(shopId: string, userId: string, role: Role, tx?: Tx): Promise<void> {
+  await MembershipModel.update({ role }, { where: { shopId, userId }, transaction: tx ?? null });
+}
+
+/** Removes the membership only: the person's account, recipes and logs stay. */
+export async function deleteMember(shopId: string, userId: string, tx?: Tx): Promise<void> {
+  await MembershipModel.destroy({ where: { shopId, userId }, transaction: tx ?? null });
 }
