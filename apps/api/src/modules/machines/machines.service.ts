@@ -44,6 +44,26 @@ function bodyOf(m: Machine): MachineBody {
   return body;
 }
 
+/** The value at a dot path ("axes.x.stiffnessNPerMm", "modes.0") of a machine body. */
+function valueAt(body: MachineBody, path: string): unknown {
+  let value: unknown = body;
+  for (const key of path.split(".")) {
+    if (value === null || typeof value !== "object") return undefined;
+    value = (value as Record<string, unknown>)[key];
+  }
+  return value;
+}
+
+/**
+ * A value someone typed over is no longer the kind's estimate: unless the patch sends its own
+ * `estimatedFields`, paths whose value changed drop out of the list.
+ */
+function remainingEstimates(before: MachineBody, after: MachineBody): string[] {
+  return before.estimatedFields.filter(
+    (path) => JSON.stringify(valueAt(before, path)) === JSON.stringify(valueAt(after, path)),
+  );
+}
+
 /**
  * Changes the fields sent. `modes`, when sent, replaces the machine's whole mode set; the machine
  * and its modes change together or not at all.
@@ -53,7 +73,9 @@ export async function patchMachine(shopId: string, id: string, patch: MachinePat
     const current = await findMachine(shopId, id, tx, true);
     if (!current) throw AppError.notFound("Machine not found.");
     if (current.deletedAt) throw AppError.conflict("This machine is deleted; restore it before editing it.");
-    const merged = machineBodySchema.parse({ ...bodyOf(current), ...patch });
+    const before = bodyOf(current);
+    const merged = machineBodySchema.parse({ ...before, ...patch });
+    if (patch.estimatedFields === undefined) merged.estimatedFields = remainingEstimates(before, merged);
     const { modes, ...columns } = merged;
     await updateMachine(shopId, id, columns, tx);
     if (patch.modes !== undefined) await replaceModes(shopId, id, modes, tx);

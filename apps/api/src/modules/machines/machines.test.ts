@@ -160,6 +160,23 @@ describe("PATCH /machines/:id", () => {
     expect(cleared.modes).toEqual([]);
   });
 
+  it("drops a field from the estimates once someone enters its value, unless estimates are sent too", async () => {
+    const defaults = machineDefaultsSchema.parse((await team.owner.agent.get(`${base()}/defaults`).query({ kind: "gantry_router" })).body);
+    const m = machineSchema.parse((await team.owner.agent.post(base()).send({ ...defaults, name: "Measured later" })).body);
+    const measured = await team.owner.agent.patch(`${base()}/${m.id}`).send({
+      axes: { ...m.axes, y: { ...m.axes.y, stiffnessNPerMm: 260 } },
+      modes: [{ ...m.modes[0]!, frequencyHz: 23.9, source: "measured" }],
+    });
+    const after = machineSchema.parse(measured.body).estimatedFields;
+    expect(after).not.toContain("axes.y.stiffnessNPerMm");
+    expect(after).not.toContain("modes.0");
+    expect(after).toContain("axes.x.stiffnessNPerMm");
+    expect(after).toHaveLength(m.estimatedFields.length - 2);
+
+    const explicit = await team.owner.agent.patch(`${base()}/${m.id}`).send({ axes: { ...m.axes, x: { ...m.axes.x, travelMm: 900 } }, estimatedFields: ["axes.x.travelMm"] });
+    expect(machineSchema.parse(explicit.body).estimatedFields).toEqual(["axes.x.travelMm"]);
+  });
+
   it("changes nothing when any part of the patch is invalid", async () => {
     const m = await create({ name: "Atomic" });
     const res = await team.owner.agent.patch(`${base()}/${m.id}`).send({
