@@ -19,6 +19,7 @@ import { registerRecipeRoutes } from "./modules/recipes/recipes.router.js";
 import { registerCutLogRoutes } from "./modules/cut-logs/cut-logs.router.js";
 import { registerLadderRoutes } from "./modules/ladders/ladders.router.js";
 import { registerShopExportRoutes } from "./modules/shop-export/shop-export.router.js";
+import { registerVibrationRoutes } from "./modules/vibration/vibration.routes.js";
 import { LocalDirectoryStorage } from "./storage/local-directory-storage.js";
 
 export function createShopScopedRouter(config: AppConfig = readConfig()): Router {
@@ -36,6 +37,7 @@ export function createShopScopedRouter(config: AppConfig = readConfig()): Router
   registerCutLogRoutes(router, { storage: new LocalDirectoryStorage(config.storageDir), photoMaxBytes: config.photoMaxBytes });
   registerLadderRoutes(router);
   registerShopExportRoutes(router);
+  registerVibrationRoutes(router, { storageDir: config.storageDir });
   return router;
 }
 

@@ -10,6 +10,9 @@ import { migrate } from "./db/migrate.js";
 import { closeDatabase, connectDatabase, getSequelize } from "./db/sequelize.js";
 import { purgeExpiredRateLimits, settleRateLimitWrites } from "./http/rate-limit-store.js";
 import { seedDemo } from "./seed/index.js";
+import { startJobQueue, stopJobQueue } from "./jobs/job-queue.js";
+import { startAnalysisWorker } from "./modules/analysis/analysis.worker.js";
+import { LocalDirectoryStorage } from "./storage/local-directory-storage.js";
 
 const log = (line: string) => console.log(`[ringdown-api] ${line}`);
 
@@ -53,7 +56,14 @@ async function main(): Promise<void> {
     const applied = await migrate(sequelize, config.databaseUrl);
     log(applied.length > 0 ? `applied migrations: ${applied.join(", ")}` : "database schema up to date");
     if (config.seedDemo) await seedDemo(log);
+    // The job queue: uploads send analysis jobs; unless RUN_WORKER=false this process works them too.
+    const boss = await startJobQueue(config.databaseUrl, log);
+    if (config.jobs.runWorker) {
+      await startAnalysisWorker(boss, { storage: new LocalDirectoryStorage(config.storageDir), log }, config.jobs.analysisConcurrency);
+      log(`analysis worker running (${config.jobs.analysisConcurrency} at a time)`);
+    } else log("analysis worker off in this process (RUN_WORKER=false): run npm run worker -w @ringdown/api");
   } catch (error) {
+    await stopJobQueue({ graceful: false }).catch(() => undefined);
     await closeDatabase().catch(() => undefined);
     fail(describeStartupError(error, config));
   }
@@ -92,6 +102,8 @@ async function main(): Promise<void> {
     force.unref();
     server.close(() => {
       settleRateLimitWrites()
+        // A running analysis may finish for up to 8 s; an unfinished one is handed out again later.
+        .then(() => stopJobQueue({ graceful: true, timeoutMs: 8_000 }))
         .then(closeDatabase)
         .catch((error: unknown) => console.error("[ringdown-api] closing the database failed:", error))
         .finally(() => {

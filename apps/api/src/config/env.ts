@@ -62,6 +62,13 @@ export interface AppConfig {
     /** Sign-ups per client IP. */
     signupPerIp: RateLimitRule;
   };
+  /** Background jobs (recording analysis) on the pg-boss queue. */
+  jobs: {
+    /** The API process also works analysis jobs (false: only separate `npm run worker -w @ringdown/api` processes do). */
+    runWorker: boolean;
+    /** Analysis jobs one process works at once. */
+    analysisConcurrency: number;
+  };
 }
 
 export interface MailConfig {
@@ -149,6 +156,8 @@ const envSchema = z
     LOGIN_MAX_PER_IP: positiveInt(30),
     LOGIN_MAX_PER_ACCOUNT: positiveInt(10),
     SIGNUP_MAX_PER_IP: positiveInt(20),
+    RUN_WORKER: z.stringbool().default(true),
+    ANALYSIS_CONCURRENCY: z.coerce.number<string>().int().min(1).max(8).default(1),
     // Ports of the local clusters (docker-free-db/pg.sh), used for the default DATABASE_URL.
     RINGDOWN_PG_DEV_PORT: z.coerce.number<string>().int().min(1).max(65535).default(5433),
     RINGDOWN_PG_TEST_PORT: z.coerce.number<string>().int().min(1).max(65535).default(5434),
@@ -236,6 +245,7 @@ export function parseConfig(env: Record<string, string | undefined>): AppConfig 
       loginPerAccount: { limit: e.LOGIN_MAX_PER_ACCOUNT, windowMs: minutes(15) },
       signupPerIp: { limit: e.SIGNUP_MAX_PER_IP, windowMs: minutes(60) },
     },
+    jobs: { runWorker: e.RUN_WORKER, analysisConcurrency: e.ANALYSIS_CONCURRENCY },
   };
 }
 

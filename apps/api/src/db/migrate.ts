@@ -4,9 +4,10 @@ import { SequelizeStorage, Umzug, type MigrationFn } from "umzug";
 import * as m0001 from "./migrations/0001-users-shops-memberships.js";
 import * as m0002 from "./migrations/0002-sessions-and-rate-limits.js";
 import * as m0003 from "./migrations/0003-library-and-recipes.js";
-import { syncGlobalMaterials } from "../modules/materials/global-materials.sync.js";
 import * as m0010 from "./migrations/0010-recipe-ladders-and-list-indexes.js";
 import * as m0020 from "./migrations/0020-team-and-billing.js";
+import * as m0030 from "./migrations/0030-vibration-profiles.js";
+import { syncGlobalMaterials } from "../modules/materials/global-materials.sync.js";
 
 type Migration = { up: MigrationFn<Sequelize>; down: MigrationFn<Sequelize> };
 
@@ -17,6 +18,7 @@ const migrations: Array<{ name: string } & Migration> = [
   { name: "0003-library-and-recipes", ...m0003 },
   { name: "0010-recipe-ladders-and-list-indexes", ...m0010 },
   { name: "0020-team-and-billing", ...m0020 },
+  { name: "0030-vibration-profiles", ...m0030 },
 ];
 
 // Any constant shared by every API instance; serialises concurrent start-ups on one database.

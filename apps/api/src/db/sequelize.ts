@@ -12,6 +12,7 @@ import { initAssemblyModel } from "../modules/assemblies/assembly.model.js";
 import { initRecipeModels } from "../modules/recipes/recipe.model.js";
 import { initCutLogModels } from "../modules/cut-logs/cut-log.model.js";
 import { initLadderModel } from "../modules/ladders/ladder.model.js";
+import { initVibrationModels } from "../modules/vibration/vibration.models.js";
 
 // BIGINT counts (COUNT(*)) come back as strings by default; our counts fit in a JS number.
 pg.types.setTypeParser(pg.types.builtins.INT8, (value: string) => Number.parseInt(value, 10));
@@ -41,6 +42,7 @@ export function connectDatabase(databaseUrl: string): Sequelize {
   initRecipeModels(instance);
   initCutLogModels(instance);
   initLadderModel(instance);
+  initVibrationModels(instance);
   return instance;
 }
 
