@@ -110,7 +110,7 @@ vitest_step() {
 
 typecheck_all() {
   local dir status=0
-  for dir in packages/machining packages/contracts apps/api apps/web tests; do
+  for dir in $(node -p 'require("./package.json").workspaces.join(" ")'); do
     has_script "$dir" typecheck || continue
     echo "typecheck $dir"
     npm run --silent typecheck -w "$dir" || status=1
