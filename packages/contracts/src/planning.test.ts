@@ -172,8 +172,8 @@ describe("planRecipe and summarizeRecommendation", () => {
     expect(summary.materialRemovalRateMm3PerMin).toBeCloseTo(rec.axialDepthMm * rec.radialDepthMm * rec.feedMmPerMin, 6);
     expect(summary.axialDepthMm).toBe(rec.axialDepthMm);
     expect(summary.radialDepthMm).toBe(rec.radialDepthMm);
-    const binding = rec.limits.find((l) => l.binding);
-    expect(summary.bindingLimit).toBe(binding ? binding.label : null);
+    const binding = rec.limits.filter((l) => l.binding).map((l) => l.label);
+    expect(summary.bindingLimit).toBe(binding.length ? binding.join("; ") : null);
     expect(summary.stable).toBe(rec.stability.checked ? rec.stability.stable : null);
     expect(summary.warnings).toEqual(rec.warnings.map((w) => w.message));
     expect(recommendationSchema.safeParse(JSON.parse(JSON.stringify(rec))).success).toBe(true);

@@ -226,11 +226,12 @@ export function planRecipe(p: PlanningInput): Recommendation {
 
 /**
  * The headline numbers stored with each recipe revision. `chipLoadMm` is the programmed feed per
- * tooth (after chip-thinning compensation and any reduction); `bindingLimit` names the first
- * ceiling that reduced or moved the recipe; `stable` is null when chatter stability was not checked.
+ * tooth (after chip-thinning compensation and any reduction); `bindingLimit` names the ceilings
+ * that reduced or moved the recipe, in the engine's order, joined by "; " (null when none did);
+ * `stable` is null when chatter stability was not checked.
  */
 export function summarizeRecommendation(rec: Recommendation): RecipeResultSummary {
-  const binding = rec.limits.find((l) => l.binding);
+  const binding = rec.limits.filter((l) => l.binding).map((l) => l.label);
   return {
     rpm: rec.rpm,
     feedMmPerMin: rec.feedMmPerMin,
@@ -240,7 +241,7 @@ export function summarizeRecommendation(rec: Recommendation): RecipeResultSummar
     totalDeflectionMm: rec.totalDeflectionMm,
     axialDepthMm: rec.axialDepthMm,
     radialDepthMm: rec.radialDepthMm,
-    bindingLimit: binding ? binding.label : null,
+    bindingLimit: binding.length > 0 ? binding.join("; ") : null,
     stable: rec.stability.checked ? rec.stability.stable : null,
     warnings: rec.warnings.map((w) => w.message),
   };
