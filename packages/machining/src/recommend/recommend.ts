@@ -5,6 +5,7 @@ import {
   boundaryAtRpm,
   cachedBranches,
   cachedFrfGrid,
+  modesKey,
   envelopeOverSpeeds,
   FAST_GRID,
   frequencyBandHz,
@@ -237,10 +238,22 @@ function evaluate(ctx: Context, rpm: number, fz: number, ap: number, withForce =
  * in one step for a pure power law), bisection every third step to guarantee progress. Returns
  * null when even h(lo) exceeds the ceiling; the result always satisfies h(x) ≤ ceiling.
  */
-function largestFeasible(h: (x: number) => number, ceiling: number, lo: number, hi: number, hHi: number): number | null {
+function largestFeasible(h: (x: number) => number, ceiling: number, lo: number, hi: number, hHi: number, exponentGuess = 1): number | null {
   let b = hi;
   let hb = hHi;
   if (hb <= ceiling) return b;
+  // First try the power-law guess from the top; it usually lands within a fraction of a percent.
+  const guess = hi * Math.pow(ceiling / hHi, 1 / exponentGuess);
+  if (guess > lo && guess < hi) {
+    const hg = h(guess);
+    if (hg <= ceiling) {
+      if (ceiling - hg <= 1e-3 * ceiling) return guess;
+      lo = guess;
+    } else {
+      b = guess;
+      hb = hg;
+    }
+  }
   let a = lo;
   let ha = h(a);
   if (ha > ceiling) return null;
@@ -254,12 +267,12 @@ function largestFeasible(h: (x: number) => number, ceiling: number, lo: number, 
     if (hx <= ceiling) {
       a = x;
       ha = hx;
-      if (ceiling - hx <= 1e-7 * ceiling) break;
+      if (ceiling - hx <= 1e-5 * ceiling) break;
     } else {
       b = x;
       hb = hx;
     }
-    if (b - a <= 1e-8 * b) break;
+    if (b - a <= 1e-6 * b) break;
   }
   return a;
 }
@@ -286,11 +299,13 @@ function buildStability(ctx: Context, rpmLo: number, rpmHi: number): StabilityCt
     millingDirection: ctx.input.millingDirection ?? "climb",
   });
   const band = frequencyBandHz(modes, ctx.z, rpmLo, rpmHi);
-  const grid = cachedFrfGrid(modes, band.loHz, band.hiHz, FAST_GRID);
+  // Keyed by the modes' values (not the list's identity: a list edited in place must not hit a stale grid).
+  const grid = cachedFrfGrid(modes, band.loHz, band.hiHz, FAST_GRID, modesKey(modes));
   const feedAxis = ctx.input.feedAxis ?? "any";
   const axes: ("x" | "y")[] = feedAxis === "any" ? ["x", "y"] : [feedAxis];
+  const cut = { radialImmersion: ctx.immersion, radialForceRatio: ctx.kr, millingDirection: ctx.input.millingDirection ?? "climb" };
   // Kt = 1: every depth found is divided by the actual Kt (a_lim ∝ 1/Kt; the phases do not depend on it).
-  const branches = axes.map((ax) => cachedBranches(grid, alpha, ctx.z, ax === "y"));
+  const branches = axes.map((ax) => cachedBranches(grid, alpha, cut, ctx.z, ax === "y"));
   return { axes, branches, modes, alpha };
 }
 
@@ -301,12 +316,15 @@ interface Limit {
 }
 
 function limitAt(st: StabilityCtx, ctx: Context, rpm: number, kt: number, refine: boolean, capMm = Number.MAX_VALUE): Limit | null {
+  // Branch depths are for Kt = 1: the cap scales the same way.
+  const hits = st.branches.map((br) => boundaryAtRpm(br, ctx.z, rpm, capMm * kt));
+  let lowest = Number.MAX_VALUE;
+  for (const h of hits) if (h && h.limitingDepthMm < lowest) lowest = h.limitingDepthMm;
   let best: Limit | null = null;
-  st.branches.forEach((br, i) => {
-    // Branch depths are for Kt = 1: the cap scales the same way.
-    let hit = boundaryAtRpm(br, ctx.z, rpm, capMm * kt);
-    if (!hit) return;
-    if (refine) hit = refineHit(hit, br, st.modes, st.alpha, ctx.z, 1, rpm, st.axes[i] === "y");
+  hits.forEach((h, i) => {
+    if (!h) return;
+    // Refine the lowest orientation, and any other within 5 % of it on the grid.
+    const hit = refine && h.limitingDepthMm <= 1.05 * lowest ? refineHit(h, st.branches[i]!, st.modes, st.alpha, ctx.z, 1, rpm, st.axes[i] === "y") : h;
     const depth = hit.limitingDepthMm / kt;
     if (!best || depth < best.depth) best = { depth, fc: hit.chatterFrequencyHz, axis: st.axes[i]! };
   });
@@ -486,8 +504,16 @@ interface SpeedCeiling {
   rpm: number;
 }
 
-function forbiddenIntervals(ctx: Context): { lo: number; hi: number; kind: "resonance" | "avoid-band"; text: string }[] {
-  const out: { lo: number; hi: number; kind: "resonance" | "avoid-band"; text: string }[] = [];
+interface Forbidden {
+  lo: number;
+  hi: number;
+  kind: "resonance" | "avoid-band";
+  /** Plain-language name, built only when a message needs it */
+  text: () => string;
+}
+
+function forbiddenIntervals(ctx: Context): Forbidden[] {
+  const out: Forbidden[] = [];
   const toRpm = (hz: number): number => (60 * hz) / ctx.z;
   const m = ctx.resonanceMargin;
   if (m > 0) {
@@ -496,12 +522,12 @@ function forbiddenIntervals(ctx: Context): { lo: number; hi: number; kind: "reso
         lo: toRpm(mode.frequencyHz * (1 - m)),
         hi: toRpm(mode.frequencyHz * (1 + m)),
         kind: "resonance",
-        text: `the ${fmt(mode.frequencyHz)} Hz ${mode.direction.toUpperCase()} mode${mode.label ? ` (${mode.label})` : ""}`,
+        text: () => `the ${fmt(mode.frequencyHz)} Hz ${mode.direction.toUpperCase()} mode${mode.label ? ` (${mode.label})` : ""}`,
       });
     }
   }
   for (const b of ctx.input.machine.avoidBands ?? []) {
-    out.push({ lo: toRpm(b.minHz), hi: toRpm(b.maxHz), kind: "avoid-band", text: `the avoided band ${fmt(b.minHz)}–${fmt(b.maxHz)} Hz${b.label ? ` (${b.label})` : ""}` });
+    out.push({ lo: toRpm(b.minHz), hi: toRpm(b.maxHz), kind: "avoid-band", text: () => `the avoided band ${fmt(b.minHz)}–${fmt(b.maxHz)} Hz${b.label ? ` (${b.label})` : ""}` });
   }
   return out;
 }
@@ -596,13 +622,14 @@ export function recommend(input: RecommendInput): Recommendation {
     const fzBefore = fz;
     const apBefore = ap;
     const lowest = Math.min(floorFz, fz);
-    const x = largestFeasible((v) => measure(evaluate(ctx, rpmAt, v, ap, withForce)), ceiling, lowest, fz, now);
+    // Force and power grow as fz^(1 − mc) (Kienzle) and in proportion to the depth.
+    const x = largestFeasible((v) => measure(evaluate(ctx, rpmAt, v, ap, withForce)), ceiling, lowest, fz, now, ctx.kienzle ? 1 - ctx.kienzle.mc : 1);
     if (x !== null) {
       fz = x;
       adjustments.push(`Feed per tooth reduced from ${fmt(fzBefore)} to ${fmt(fz)} mm to respect the ${label}.`);
     } else {
       fz = lowest;
-      const y = largestFeasible((v) => measure(evaluate(ctx, rpmAt, fz, v, withForce)), ceiling, 1e-6 * ap0, ap, measure(evaluate(ctx, rpmAt, fz, ap, withForce)));
+      const y = largestFeasible((v) => measure(evaluate(ctx, rpmAt, fz, v, withForce)), ceiling, 1e-6 * ap0, ap, measure(evaluate(ctx, rpmAt, fz, ap, withForce)), 1);
       ap = y ?? 1e-6 * ap0;
       adjustments.push(
         (fz < fzBefore ? `Feed per tooth reduced from ${fmt(fzBefore)} to ${fmt(fz)} mm (the lowest this recipe allows) and a` : "A") +
@@ -663,27 +690,36 @@ export function recommend(input: RecommendInput): Recommendation {
   };
   const allOk = (f: Flags): boolean => f.resonance && f.band && f.feed && f.power && f.vc && f.stable;
   const dist = (n: number): number => Math.abs(Math.log(n / n0));
-  const nearest = (list: Flags[]): Flags | null => list.reduce<Flags | null>((b, f) => (b === null || dist(f.rpm) < dist(b.rpm) ? f : b), null);
   // Where the depth must come down anyway, prefer the speed that removes the most material:
   // removal ∝ min(feed, feed ceiling) × min(depth, safety factor × boundary).
   const removal = (f: Flags): number => Math.min(fz * z * f.rpm, ctx.feedCeiling) * Math.min(ap, f.aLim === null ? ap : sf * f.aLim);
-  const mostRemoval = (list: Flags[]): Flags | null =>
-    list.reduce<Flags | null>((b, f) => {
-      if (b === null) return f;
-      const rf = removal(f);
-      const rb = removal(b);
-      return rf > rb * (1 + 1e-9) || (Math.abs(rf - rb) <= 1e-9 * rb && dist(f.rpm) < dist(b.rpm)) ? f : b;
-    }, null);
+  // Preference tiers, best first: everything holds; clear of modes/bands, stable and in the speed
+  // range (feed and power then come from the chip); clear and in range (depth comes down: most
+  // removal); clear and stable; clear (most removal); anything (nearest).
   const pick = (candidates: Flags[]): Flags => {
-    const clear = candidates.filter((f) => f.resonance && f.band);
-    return (
-      nearest(candidates.filter(allOk)) ??
-      nearest(clear.filter((f) => f.stable && f.vc)) ??
-      mostRemoval(clear.filter((f) => f.vc)) ??
-      nearest(clear.filter((f) => f.stable)) ??
-      mostRemoval(clear) ??
-      nearest(candidates)!
-    );
+    const best: (Flags | null)[] = [null, null, null, null, null, null];
+    for (const f of candidates) {
+      const clear = f.resonance && f.band;
+      const tiers = [
+        allOk(f),
+        clear && f.stable && f.vc,
+        clear && f.vc,
+        clear && f.stable,
+        clear,
+        true,
+      ];
+      for (let t = 0; t < 6; t++) {
+        if (!tiers[t]) continue;
+        const b = best[t] ?? null;
+        if (b === null) best[t] = f;
+        else if (t === 2 || t === 4) {
+          const rf = removal(f);
+          const rb = removal(b);
+          if (rf > rb * (1 + 1e-9) || (Math.abs(rf - rb) <= 1e-9 * rb && dist(f.rpm) < dist(b.rpm))) best[t] = f;
+        } else if (dist(f.rpm) < dist(b.rpm)) best[t] = f;
+      }
+    }
+    return (best.find((b) => b !== null) ?? candidates[0])!;
   };
 
   let chosen: Flags;
@@ -722,7 +758,7 @@ export function recommend(input: RecommendInput): Recommendation {
     } else {
       // The chatter boundary rules the nearest speed out: look at every speed at once through the
       // lower envelope of the lobes (boundaries above the cap are not traced).
-      const count = 120;
+      const count = 64;
       const candidates: Flags[] = [];
       const envs = stab.branches.map((br) => envelopeOverSpeeds(br, z, rpmLo, rpmHi, count, 400, capMm * kt1));
       const envAt = (n: number): number | null => {
@@ -759,12 +795,12 @@ export function recommend(input: RecommendInput): Recommendation {
       if (!before.resonance && chosen.resonance) {
         binding.add("resonance");
         const hit = forbidden.find((f) => f.kind === "resonance" && n0 > f.lo && n0 < f.hi);
-        reasons.push(`the tooth-passing frequency ${tp(n0)} was within ${fmt(ctx.resonanceMargin * 100)} % of ${hit?.text ?? "a mode"}`);
+        reasons.push(`the tooth-passing frequency ${tp(n0)} was within ${fmt(ctx.resonanceMargin * 100)} % of ${hit?.text() ?? "a mode"}`);
       }
       if (!before.band && chosen.band) {
         binding.add("avoid-band");
         const hit = forbidden.find((f) => f.kind === "avoid-band" && n0 > f.lo && n0 < f.hi);
-        reasons.push(`the tooth-passing frequency ${tp(n0)} fell in ${hit?.text ?? "an avoided band"}`);
+        reasons.push(`the tooth-passing frequency ${tp(n0)} fell in ${hit?.text() ?? "an avoided band"}`);
       }
       if (!before.stable && chosen.stable) {
         binding.add("stability");

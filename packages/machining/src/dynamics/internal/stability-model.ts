@@ -122,10 +122,22 @@ class Lru<V> {
 
 const gridCache = new Lru<FrfGrid & { key: string }>(16);
 
-/** FRF grid for a set of modes, memoised (a shop re-checks many recipes on the same machine). */
-export function cachedFrfGrid(modes: readonly Mode[], loHz: number, hiHz: number, density: GridDensity): FrfGrid & { key: string } {
-  let key = `${loHz}|${hiHz}|${density.basePoints}|${density.perModePoints}`;
+/** Cache key of a set of modes (callers that check many recipes of one machine pass it in). */
+export function modesKey(modes: readonly Mode[]): string {
+  let key = "";
   for (const m of modes) key += `|${m.direction}${m.frequencyHz},${m.dampingRatio},${m.stiffnessNPerMm}`;
+  return key;
+}
+
+/** FRF grid for a set of modes, memoised (a shop re-checks many recipes on the same machine). */
+export function cachedFrfGrid(
+  modes: readonly Mode[],
+  loHz: number,
+  hiHz: number,
+  density: GridDensity,
+  precomputedModesKey?: string,
+): FrfGrid & { key: string } {
+  const key = `${loHz}|${hiHz}|${density.basePoints}|${density.perModePoints}${precomputedModesKey ?? modesKey(modes)}`;
   const hit = gridCache.get(key);
   if (hit) return hit;
   const grid = { ...frfOnGrid(modes, frequencyGrid(modes, loHz, hiHz, density)), key };
@@ -133,18 +145,44 @@ export function cachedFrfGrid(modes: readonly Mode[], loHz: number, hiHz: number
   return grid;
 }
 
-const branchCache = new Lru<Branches>(64);
+// Branches per grid, keyed by the cut's parameters (numbers, so no float-to-text keys on the hot path).
+const branchCache = new WeakMap<FrfGrid, Map<string, Map<number, Map<number, Branches>>>>();
 
 /**
- * solveBranches memoised on the grid and the directional factors (with Kt = 1 the branches do not
- * depend on the chip): recipes of one machine share a handful of stepover ratios.
+ * solveBranches memoised on the grid and the cut (with Kt = 1 the branches do not depend on the
+ * chip): recipes of one machine share a handful of stepover ratios. `alpha` must be the directional
+ * factors of (radialImmersion, radialForceRatio, millingDirection).
  */
-export function cachedBranches(grid: FrfGrid & { key: string }, alpha: DirectionalFactors, flutes: number, swapAxes: boolean): Branches {
-  const key = `${grid.key}#${alpha.xx},${alpha.xy},${alpha.yx},${alpha.yy}#${flutes}#${swapAxes ? 1 : 0}`;
-  const hit = branchCache.get(key);
-  if (hit) return hit;
-  const br = solveBranches(grid, alpha, flutes, 1, swapAxes);
-  branchCache.set(key, br);
+export function cachedBranches(
+  grid: FrfGrid,
+  alpha: DirectionalFactors,
+  cut: { radialImmersion: number; radialForceRatio: number; millingDirection: string },
+  flutes: number,
+  swapAxes: boolean,
+): Branches {
+  let byKind = branchCache.get(grid);
+  if (!byKind) {
+    byKind = new Map();
+    branchCache.set(grid, byKind);
+  }
+  const kind = `${cut.millingDirection}${flutes}${swapAxes ? "y" : "x"}`;
+  let byImmersion = byKind.get(kind);
+  if (!byImmersion) {
+    byImmersion = new Map();
+    byKind.set(kind, byImmersion);
+  }
+  let byKr = byImmersion.get(cut.radialImmersion);
+  if (!byKr) {
+    if (byImmersion.size > 256) byImmersion.clear();
+    byKr = new Map();
+    byImmersion.set(cut.radialImmersion, byKr);
+  }
+  let br = byKr.get(cut.radialForceRatio);
+  if (!br) {
+    if (byKr.size > 64) byKr.clear();
+    br = solveBranches(grid, alpha, flutes, 1, swapAxes);
+    byKr.set(cut.radialForceRatio, br);
+  }
   return br;
 }
 
@@ -477,23 +515,33 @@ export function refineHit(
     const eps = Math.PI + 2 * Math.atan(li / lr);
     return { h: q * freq - eps / (2 * Math.PI) - hit.lobeIndex, a: c / lr };
   };
+  // Illinois (modified regula falsi) on the bracket: superlinear, and never leaves the bracket.
   let lo = fA;
   let hi = fB;
-  const hLo = evalAt(lo);
-  const hHi = evalAt(hi);
-  if (!hLo || !hHi || hLo.h * hHi.h > 0) return hit;
-  let sLo = Math.sign(hLo.h);
-  let mid = 0.5 * (lo + hi);
-  let res = evalAt(mid);
-  for (let it = 0; it < 40 && res; it++) {
-    if (Math.sign(res.h) === sLo) {
-      lo = mid;
-      sLo = Math.sign(res.h);
-    } else hi = mid;
-    mid = 0.5 * (lo + hi);
-    res = evalAt(mid);
-    if (hi - lo < 1e-10 * mid) break;
+  const rLo = evalAt(lo);
+  const rHi = evalAt(hi);
+  if (!rLo || !rHi || rLo.h * rHi.h > 0) return hit;
+  let hLo = rLo.h;
+  let hHi = rHi.h;
+  let best = Math.abs(hLo) < Math.abs(hHi) ? { f: lo, a: rLo.a } : { f: hi, a: rHi.a };
+  let side = 0;
+  for (let it = 0; it < 30; it++) {
+    const f = hi - (hHi * (hi - lo)) / (hHi - hLo);
+    const r = evalAt(f);
+    if (!r) break;
+    best = { f, a: r.a };
+    if (Math.abs(r.h) < 1e-12 || hi - lo < 1e-10 * f) break;
+    if (r.h * hHi > 0) {
+      hi = f;
+      hHi = r.h;
+      if (side === 1) hLo /= 2;
+      side = 1;
+    } else {
+      lo = f;
+      hLo = r.h;
+      if (side === -1) hHi /= 2;
+      side = -1;
+    }
   }
-  if (!res) return hit;
-  return { ...hit, limitingDepthMm: res.a, chatterFrequencyHz: mid };
+  return { ...hit, limitingDepthMm: best.a, chatterFrequencyHz: best.f };
 }
