@@ -119,6 +119,8 @@ export interface FakeProvider {
   renew(id: string): Promise<SubscriptionRecord>;
   /** Completes a checkout as the customer would on the checkout page. */
   completeCheckout(sessionId: string): Promise<Obj>;
+  /** Waits until every webhook triggered so far has been delivered (or given up on). */
+  settled(): Promise<void>;
 }
 
 export function createFakeProvider(options: FakeProviderOptions): FakeProvider {
@@ -126,6 +128,16 @@ export function createFakeProvider(options: FakeProviderOptions): FakeProvider {
   let webhookUrl = options.webhookUrl;
   const signer = new Stripe("sk_test_signing_only", { telemetry: false });
   const events: DeliveredEvent[] = [];
+  const pending = new Set<Promise<void>>();
+  /**
+   * As the real service does, API calls answer first and notify afterwards: the caller may still
+   * hold database locks that the webhook handler needs.
+   */
+  const notifyLater = (type: string, object: Obj, previous?: Record<string, unknown>) => {
+    const work = deliver(type, structuredClone(object), previous).catch(() => undefined);
+    pending.add(work);
+    void work.finally(() => pending.delete(work));
+  };
 
   let state: State = { customers: {}, products: {}, prices: {}, sessions: {}, subscriptions: {} };
   if (options.stateFile) {
@@ -435,7 +447,7 @@ export function createFakeProvider(options: FakeProviderOptions): FakeProvider {
     res.json(publicSession(session));
   });
 
-  api.post("/subscriptions", async (req, res) => {
+  api.post("/subscriptions", (req, res) => {
     const body = req.body as Record<string, unknown>;
     const customer = String(required(body, "customer"));
     if (!state.customers[customer]) throw missing("customer", customer);
@@ -451,11 +463,11 @@ export function createFakeProvider(options: FakeProviderOptions): FakeProvider {
       collectionMethod: String(body.collection_method ?? "charge_automatically"),
     });
     save();
-    await deliver("customer.subscription.created", sub);
+    notifyLater("customer.subscription.created", sub);
     res.json(sub);
   });
   api.get("/subscriptions/:id", (req, res) => res.json(getSubscription(req.params.id)));
-  api.post("/subscriptions/:id", async (req, res) => {
+  api.post("/subscriptions/:id", (req, res) => {
     const sub = getSubscription(req.params.id);
     const body = req.body as Record<string, unknown>;
     if (sub.status === "canceled" || sub.status === "incomplete_expired") {
@@ -485,12 +497,18 @@ export function createFakeProvider(options: FakeProviderOptions): FakeProvider {
       sub.metadata = { ...sub.metadata, ...metadataOf(body.metadata) };
     }
     save();
-    await deliver("customer.subscription.updated", sub, previous);
+    notifyLater("customer.subscription.updated", sub, previous);
     res.json(sub);
   });
-  api.delete("/subscriptions/:id", async (req, res) => {
+  api.delete("/subscriptions/:id", (req, res) => {
     const sub = getSubscription(req.params.id);
-    res.json(await setSubscriptionStatus(sub.id, "canceled"));
+    const previous = { status: sub.status };
+    sub.status = "canceled";
+    sub.ended_at = now();
+    sub.canceled_at ??= now();
+    save();
+    notifyLater("customer.subscription.deleted", sub, previous);
+    res.json(sub);
   });
   api.use((req) => {
     throw new ProviderError(404, {
@@ -585,5 +603,8 @@ ${
     setSubscriptionStatus,
     renew,
     completeCheckout,
+    settled: async () => {
+      while (pending.size > 0) await Promise.allSettled([...pending]);
+    },
   };
 }
