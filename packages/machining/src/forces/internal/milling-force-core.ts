@@ -9,7 +9,7 @@ export interface ForceCore {
   peakResultantN: number;
 }
 
-const SAMPLES = 24;
+const SAMPLES = 16;
 
 export function millingForceCore(
   flutes: number,
