@@ -2,7 +2,7 @@ import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { apiErrorSchema, recipePageSchema, recipeSchema, recipeTransitionListSchema, type Recipe, type RecipeStatus } from "@ringdown/contracts";
 import { getSequelize } from "../../db/sequelize.js";
 import { createPerson, disconnectTestDatabase, joinShop, makeTestApp, type SignedUp } from "../../test/harness.js";
-import { insertAssembly, insertCutter, libraryFor } from "./recipe-test-fixtures.js";
+import { insertAssembly, insertCutter, insertMachine, libraryFor, routerMachine } from "./recipe-test-fixtures.js";
 
 const app = makeTestApp();
 afterAll(disconnectTestDatabase);
@@ -179,6 +179,41 @@ describe("editing a proven or approved recipe", () => {
     await move("owner", r.id, "approved").expect(200);
     const restored = recipeSchema.parse((await people.programmer.agent.post(url(`/${r.id}/restore`)).send({ revision: 1 }).expect(200)).body);
     expect(restored).toMatchObject({ status: "trial", revision: 3, params: r.params });
+  });
+});
+
+describe("re-checking against a changed library (PATCH with nothing to change)", () => {
+  it("clears the re-check flag and writes nothing when the numbers stay", async () => {
+    const r = await create();
+    await getSequelize().query(`UPDATE recipes SET needs_recheck = true WHERE id = :id`, { replacements: { id: r.id } });
+    expect(recipeSchema.parse((await people.programmer.agent.get(url(`/${r.id}`))).body).needsRecheck).toBe(true);
+    const checked = recipeSchema.parse((await people.programmer.agent.patch(url(`/${r.id}`)).send({}).expect(200)).body);
+    expect(checked).toMatchObject({ needsRecheck: false, revision: 1 });
+  });
+
+  it("writes a recomputed revision and sends a settled recipe back to trial when its numbers move", async () => {
+    // Its own machine, re-measured below (the shared fixtures stay as they are).
+    const machineId = await insertMachine(shopId, { ...routerMachine, name: "Re-measured router" });
+    const assemblyId = await insertAssembly(shopId, machineId, lib.cutterId);
+    const r = await create(assemblyId);
+    await move("programmer", r.id, "trial").expect(200);
+    await logCut(r.id);
+    await move("programmer", r.id, "proven").expect(200);
+    await move("owner", r.id, "approved").expect(200);
+    // The shop re-measures the machine: twice as stiff in X and Y.
+    await getSequelize().query(
+      `UPDATE machines SET axes = jsonb_set(jsonb_set(axes, '{x,stiffnessNPerMm}', '3000'), '{y,stiffnessNPerMm}', '2400') WHERE id = :id;
+       UPDATE recipes SET needs_recheck = true WHERE id = :recipe`,
+      { replacements: { id: machineId, recipe: r.id } },
+    );
+    const res = await people.programmer.agent.patch(url(`/${r.id}`)).send({ changeNote: "Machine re-measured" }).expect(200);
+    const after = recipeSchema.parse(res.body);
+    expect(after).toMatchObject({ revision: 2, status: "trial", needsRecheck: false, params: r.params });
+    // Deflection-bound: the stiffer machine takes a deeper cut at the same chip.
+    expect(after.result.axialDepthMm!).toBeGreaterThan(r.result.axialDepthMm! * 1.1);
+    expect(after.lastComment).toMatch(/^Revision 2 recomputed this approved recipe against the current library and its numbers moved \(.+\): it is back on trial until it is proven again\.$/);
+    const rev = (await people.programmer.agent.get(url(`/${r.id}/revisions`))).body.items[0];
+    expect(rev).toMatchObject({ changeNote: "Machine re-measured", changes: ["recomputed against the current library"] });
   });
 });
 

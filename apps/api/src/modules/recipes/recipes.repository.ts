@@ -217,6 +217,10 @@ export async function updateRecipeState(shopId: string, id: string, state: Recip
   );
 }
 
+export async function clearNeedsRecheck(shopId: string, id: string, tx: Tx): Promise<void> {
+  await RecipeModel.update({ needsRecheck: false }, { where: { shopId, id, needsRecheck: true }, transaction: tx, silent: true });
+}
+
 export async function setRecipeStatus(shopId: string, id: string, status: RecipeStatus, lastComment: string | null, tx: Tx): Promise<void> {
   await RecipeModel.update({ status, lastComment }, { where: { shopId, id }, transaction: tx });
 }

@@ -9,6 +9,7 @@ import type {
   RecipeListQuery,
   RecipePage,
   RecipeParams,
+  RecipeResultSummary,
   RecipeRevision,
   RecipeStatus,
   RecipeTransition,
@@ -32,6 +33,7 @@ import {
   lockRecipe,
   setRecipeDeleted,
   setRecipeStatus,
+  clearNeedsRecheck,
   updateRecipeState,
   type RecipeState,
   type RevisionRecord,
@@ -106,6 +108,26 @@ function canonical(v: unknown): unknown {
   return v;
 }
 
+/** Relative change that counts as the machine running a different recipe [-]. */
+const MOVED = 0.005;
+
+/**
+ * What moved between two results by more than 0.5 % (speed, feed, depths), in words, or "" when
+ * nothing did: a proven recipe whose numbers move has not been proven with those numbers.
+ */
+function numbersMoved(before: RecipeResultSummary, after: RecipeResultSummary): string {
+  const parts: string[] = [];
+  const check = (label: string, unit: string, a: number | undefined, b: number | undefined) => {
+    if (a === undefined || b === undefined) return;
+    if (Math.abs(b - a) > MOVED * Math.max(Math.abs(a), Math.abs(b))) parts.push(`${label} ${Number(a.toPrecision(4))} → ${Number(b.toPrecision(4))} ${unit}`);
+  };
+  check("speed", "rpm", before.rpm, after.rpm);
+  check("feed", "mm/min", before.feedMmPerMin, after.feedMmPerMin);
+  check("axial depth", "mm", before.axialDepthMm, after.axialDepthMm);
+  check("radial depth", "mm", before.radialDepthMm, after.radialDepthMm);
+  return parts.join(", ");
+}
+
 /** True when the cut itself changes (what was proven no longer describes it). */
 function cutChanged(before: RecipeState, after: RecipeState): boolean {
   return (
@@ -150,13 +172,20 @@ export async function reviseRecipe(shopId: string, id: string, change: RecipeCha
     { refuseRetiredCutter: change.assemblyId !== undefined && change.assemblyId !== current.assemblyId },
   );
   const anything = cutChanged(current, next) || current.name !== next.name || current.notes !== next.notes || !sameJson(current.result, next.result);
-  if (!anything) return { changed: false };
+  if (!anything) {
+    // Re-checked against the current library and nothing moved: the flag the library sets clears.
+    await clearNeedsRecheck(shopId, id, tx);
+    return { changed: false };
+  }
   const revision = current.revision + 1;
-  const demote = (current.status === "proven" || current.status === "approved") && cutChanged(current, next);
+  const settled = current.status === "proven" || current.status === "approved";
+  const moved = numbersMoved(current.result, next.result);
   await updateRecipeState(shopId, id, { ...next, revision }, tx);
   await insertRevision(shopId, id, revision, next, changeNote, actor.userId, tx);
-  if (demote) {
-    const comment = `Revision ${revision} changed the cut of this ${current.status} recipe: it is back on trial until it is proven again.`;
+  if (settled && (cutChanged(current, next) || moved)) {
+    const comment = cutChanged(current, next)
+      ? `Revision ${revision} changed the cut of this ${current.status} recipe: it is back on trial until it is proven again.`
+      : `Revision ${revision} recomputed this ${current.status} recipe against the current library and its numbers moved (${moved}): it is back on trial until it is proven again.`;
     await insertTransition(shopId, id, current.status, "trial", comment, actor.userId, tx);
     await setRecipeStatus(shopId, id, "trial", comment, tx);
   }
