@@ -61,7 +61,7 @@ describe("stiffnessAt / stiffnessMapLookup", () => {
   });
 
   it("rejects a direction with no points and a non-positive stiffness", () => {
-    expect(() => stiffnessAt({ points: line, xMm: 0, yMm: 0, direction: "z" })).toThrow("stiffnessMapLookup requires at least one point with direction z");
+    expect(() => stiffnessAt({ points: line, xMm: 0, yMm: 0, direction: "z" })).toThrow("stiffnessAt requires at least one point with direction z");
     expect(() => stiffnessAt({ points: [{ xMm: 0, yMm: 0, stiffnessNPerMm: 0, direction: "x" }], xMm: 0, yMm: 0, direction: "x" })).toThrow(RangeError);
   });
 });

@@ -16,5 +16,5 @@ import { stiffnessMapLookup, type Axis, type StiffnessPoint } from "./stiffness-
  * @example stiffnessAt({ points: [{ xMm: 0, yMm: 0, stiffnessNPerMm: 400, direction: "y" }, { xMm: 1000, yMm: 0, stiffnessNPerMm: 100, direction: "y" }], xMm: 500, yMm: 0, direction: "y" }) // 160 N/mm
  */
 export function stiffnessAt(input: { points: readonly StiffnessPoint[]; xMm: number; yMm: number; direction: Axis }): number {
-  return stiffnessMapLookup(input).stiffnessNPerMm;
+  return stiffnessMapLookup(input, "stiffnessAt").stiffnessNPerMm;
 }

@@ -47,8 +47,11 @@ export interface StiffnessLookup {
  * @source Shepard, "A two-dimensional interpolation function for irregularly-spaced data", ACM 1968
  *   (inverse-distance weighting; from memory); bilinear interpolation (standard).
  */
-export function stiffnessMapLookup(input: { points: readonly StiffnessPoint[]; xMm: number; yMm: number; direction: Axis }): StiffnessLookup {
-  const fn = "stiffnessMapLookup";
+export function stiffnessMapLookup(
+  input: { points: readonly StiffnessPoint[]; xMm: number; yMm: number; direction: Axis },
+  /** Name used in error messages (callers that wrap this function pass their own) */
+  fn = "stiffnessMapLookup",
+): StiffnessLookup {
   const { points, xMm, yMm, direction } = input;
   requireFinite(fn, "xMm", xMm);
   requireFinite(fn, "yMm", yMm);

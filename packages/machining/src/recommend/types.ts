@@ -24,7 +24,7 @@ export interface CutterInput {
   /** Shank diameter [mm] */
   shankDiameterMm: number;
   toolMaterial: ToolMaterial;
-  /** Helix angle [deg], 0–60 */
+  /** Helix angle [deg], 0–60 (recorded; the force model uses straight teeth, which is conservative for the peak force) */
   helixAngleDeg: number;
   /** Corner radius [mm], required for shape "bull" */
   cornerRadiusMm?: number;
