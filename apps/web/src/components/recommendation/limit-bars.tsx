@@ -6,7 +6,7 @@ import { LIMIT_STATE_WORDS, limitBars, type LimitBar } from "./readout";
 export function LimitBarRow({ bar }: { bar: LimitBar }) {
   const stateWord = LIMIT_STATE_WORDS[bar.state];
   return (
-    <li className="flex flex-col gap-1" data-state={bar.state}>
+    <li className="flex flex-col gap-1 print:gap-0.5" data-state={bar.state}>
       <div className="flex flex-wrap items-baseline justify-between gap-x-3 gap-y-0.5 text-sm">
         <span className="text-ink">{bar.label}</span>
         <span className="tabular text-xs whitespace-nowrap text-muted">{bar.reading}</span>
@@ -27,11 +27,12 @@ export function LimitBarRow({ bar }: { bar: LimitBar }) {
         />
         <div
           aria-hidden
-          className="absolute -inset-y-1 w-0.5 -translate-x-1/2 rounded bg-ink"
+          className="bar-mark absolute -inset-y-1 w-0.5 -translate-x-1/2 rounded bg-ink"
           style={{ left: `${bar.mark * 100}%` }}
         />
       </div>
-      <div className="flex items-center gap-1.5 text-xs">
+      {/* In print (black on white) a bar within its limit needs no words; near and binding keep theirs. */}
+      <div className={cn("flex items-center gap-1.5 text-xs", bar.state === "within" && "print:hidden")}>
         <span aria-hidden className="inline-block size-2 rounded-full print:hidden" style={{ backgroundColor: bar.colour }} />
         <span className={cn(bar.state === "binding" ? "font-medium text-limit print:text-black" : "text-muted")}>
           {bar.state === "binding" && bar.over ? "exceeded" : stateWord}

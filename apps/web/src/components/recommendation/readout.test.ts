@@ -141,7 +141,7 @@ describe("numbers in the person's unit system", () => {
     expect(rows.get("rpm")!.shown.value).toBe(rec.rpm);
     expect(rows.get("feed")!.shown.unit).toBe("in/min");
     expect(rows.get("feed")!.shown.value).toBeCloseTo(rec.feedMmPerMin / 25.4, 9);
-    expect(rows.get("fz")!.shown.unit).toBe("in");
+    expect(rows.get("fz")!.shown.unit).toBe("in/tooth");
     expect(rows.get("fz")!.shown.value).toBeCloseTo(rec.chipLoadMm / 25.4, 12);
     // 1 hp = 550 ft·lbf/s = 745.69987158227022 W (definition of mechanical horsepower).
     expect(rows.get("power")!.shown.unit).toBe("hp");

@@ -23,8 +23,11 @@ export interface Shown {
   value: number;
 }
 
-/** How a base value turns into a shown one: its quantity (null when the unit is the same in both systems). */
-export type DisplayKind = { quantity: Quantity } | { unit: string };
+/**
+ * How a base value turns into a shown one: its quantity (converted between systems, with an
+ * optional denominator kept as is, e.g. "/tooth"), or a unit that is the same in both systems.
+ */
+export type DisplayKind = { quantity: Quantity; per?: string } | { unit: string };
 
 /**
  * Rounds for reading, not for computing: whole numbers from 1 000 up (a spindle speed of
@@ -42,7 +45,7 @@ export function formatReading(value: number, system: UnitSystem): string {
 export function show(value: number, kind: DisplayKind, system: UnitSystem): Shown {
   if ("unit" in kind) return { text: formatReading(value, system), unit: kind.unit, value };
   const converted = toUnitSystem({ value, quantity: kind.quantity, system });
-  return { text: formatReading(converted.value, system), unit: converted.unit, value: converted.value };
+  return { text: formatReading(converted.value, system), unit: `${converted.unit}${kind.per ?? ""}`, value: converted.value };
 }
 
 /** "21 060 rpm" as one string (narrow no-break space between number and unit). */
@@ -228,6 +231,7 @@ export interface ReadoutContext {
 /** Every number the read-out shows, grouped, in the person's unit system. */
 export function readoutGroups(rec: Recommendation, system: UnitSystem, context: ReadoutContext = {}): ReadoutGroup[] {
   const len: DisplayKind = { quantity: "length" };
+  const perTooth: DisplayKind = { quantity: "length", per: "/tooth" };
   const row = (key: string, label: string, value: number, kind: DisplayKind, explain: ExplainedField | null, note?: string): ReadoutRow => {
     const r: ReadoutRow = { key, label, shown: show(value, kind, system), explain };
     if (note) r.note = note;
@@ -250,14 +254,14 @@ export function readoutGroups(rec: Recommendation, system: UnitSystem, context: 
         row("rpm", "Spindle speed", rec.rpm, { unit: "rpm" }, "rpm", rec.spindleDial ? `dial ${rec.spindleDial.label}` : undefined),
         row("vc", "Cutting speed", rec.cuttingSpeedMPerMin, { quantity: "cuttingSpeed" }, "cuttingSpeedMPerMin"),
         row("feed", "Feed", rec.feedMmPerMin, { quantity: "feedRate" }, "feedMmPerMin"),
-        row("fz", "Chip load, nominal", rec.chipLoadMm, len, "chipLoadMm", "per tooth"),
+        row("fz", "Chip load, nominal", rec.chipLoadMm, perTooth, "chipLoadMm"),
         row(
           "fzc",
           "Chip load, thinning-compensated",
           rec.compensatedChipLoadMm,
-          len,
+          perTooth,
           "compensatedChipLoadMm",
-          `per tooth, ×${formatNumber(rec.chipThinningFactor, { significantDigits: 3 })}`,
+          `thinning factor ×${formatNumber(rec.chipThinningFactor, { significantDigits: 3 })}`,
         ),
       ],
     },

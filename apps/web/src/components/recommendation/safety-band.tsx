@@ -10,7 +10,7 @@ export function SafetyBand({ notes = SAFETY_NOTES, className, compact = false }:
   return (
     <aside
       aria-label="Safety"
-      className={cn("rounded-md border border-rule bg-paper px-4 py-3 text-xs leading-relaxed text-ink", className)}
+      className={cn("rounded-md border border-rule bg-paper px-4 py-3 text-xs leading-relaxed text-ink print:leading-snug", className)}
     >
       <p className="mb-1 flex items-center gap-1.5 font-semibold">
         <ShieldAlert className="size-3.5 shrink-0 text-muted" aria-hidden />

@@ -65,12 +65,12 @@ export function LoggedOutcomes({
               <span className="text-xs text-muted">
                 {new Date(log.createdAt).toLocaleDateString("en-GB", { day: "numeric", month: "short", year: "numeric" })} · {log.userName}
               </span>
-              <Link to={`/recipes/${log.recipeId}`} className="ml-auto text-xs text-brand underline underline-offset-2">
-                Recipe
+              <Link to={`/recipes/${log.recipeId}`} className="ml-auto max-w-[50%] truncate text-xs text-brand underline underline-offset-2">
+                {log.recipeName ?? "Recipe"}
               </Link>
             </div>
             <p className="tabular text-xs text-ink">
-              <span className="text-muted">Ran at </span>
+              <span className="text-muted">{log.cutterName ? `${log.cutterName}: ran at ` : "Ran at "}</span>
               {formatQuantity(log.actualRpm, "rpm", { system, fractionDigits: 0 })}
               {" · "}
               {feedText(log.actualFeedMmPerMin, system)}

@@ -44,7 +44,7 @@ export function NumberField({
             spellCheck={false}
             invalid={Boolean(error)}
             describedBy={describedBy}
-            className={cn("tabular pr-16 text-right")}
+            className={cn("tabular text-right", unit.length > 5 ? "pr-24" : "pr-14")}
             {...rest}
           />
           <span aria-hidden className="pointer-events-none absolute inset-y-0 right-3 flex items-center text-sm text-muted">

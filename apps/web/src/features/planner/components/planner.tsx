@@ -9,7 +9,7 @@ import {
   type UnitSystem,
 } from "@ringdown/contracts";
 import { RecommendInputError, type Recommendation } from "@ringdown/machining";
-import { Factory, Save } from "lucide-react";
+import { ChevronDown, Factory, Save } from "lucide-react";
 import { useDeferredValue, useEffect, useId, useMemo, useRef, useState, type ReactNode, type Ref, type SelectHTMLAttributes } from "react";
 import { useForm, useWatch, type UseFormReturn } from "react-hook-form";
 import { Link } from "react-router-dom";
@@ -440,15 +440,18 @@ function SelectField({ label, hint, error, className, children, ...rest }: Selec
   const id = useId();
   return (
     <Field id={id} label={label} hint={hint} error={error}>
-      <select
-        id={id}
-        aria-invalid={error ? true : undefined}
-        aria-describedby={error ? `${id}-error` : hint ? `${id}-hint` : undefined}
-        className={cn(inputClass, "pr-8", className)}
-        {...rest}
-      >
-        {children}
-      </select>
+      <div className="relative">
+        <select
+          id={id}
+          aria-invalid={error ? true : undefined}
+          aria-describedby={error ? `${id}-error` : hint ? `${id}-hint` : undefined}
+          className={cn(inputClass, "cursor-pointer appearance-none pr-9 disabled:cursor-not-allowed", className)}
+          {...rest}
+        >
+          {children}
+        </select>
+        <ChevronDown aria-hidden className="pointer-events-none absolute top-1/2 right-3 size-4 -translate-y-1/2 text-muted" />
+      </div>
     </Field>
   );
 }

@@ -183,7 +183,7 @@ function LadderPlan({
         </p>
       )}
       <div className="overflow-x-auto rounded-lg border border-rule" role="region" aria-label="Ladder rungs" tabIndex={0}>
-        <table className="w-full border-collapse text-sm">
+        <table className="w-full min-w-[50rem] border-collapse text-sm">
           <caption className="sr-only">Test-cut ladder rungs</caption>
           <thead>
             <tr>
@@ -205,7 +205,7 @@ function LadderPlan({
               <th scope="col" className={`${th} text-right`}>
                 Radial depth
               </th>
-              <th scope="col" className={`${th} text-left`}>
+              <th scope="col" className={`${th} min-w-52 text-left`}>
                 Score
               </th>
               <th scope="col" className={`${th} text-right`}>

@@ -56,7 +56,7 @@ export function RecipeNumbers({ recipe, system, className }: { recipe: Recipe; s
 export function RecipeSetup({ recipe, system, className, extra }: { recipe: Recipe; system: UnitSystem; className?: string; extra?: ReactNode }) {
   const p = recipe.params;
   return (
-    <dl className={cn("grid gap-x-8 sm:grid-cols-2", className)}>
+    <dl className={cn("grid gap-x-8", className)}>
       <Row label="Machine">{recipe.machineName}</Row>
       <Row label="Cutter">{recipe.cutterName}</Row>
       <Row label="Material">{recipe.materialName}</Row>

@@ -148,9 +148,9 @@ export function RecipesPage({ shopId, role, system, options }: { shopId: string;
         },
       },
       { id: "status", header: "Status", accessorKey: "status", cell: ({ row }) => <RecipeStatusBadge status={row.original.status} /> },
-      { id: "machineName", header: "Machine", accessorKey: "machineName" },
-      { id: "cutterName", header: "Cutter", accessorKey: "cutterName" },
-      { id: "materialName", header: "Material", accessorKey: "materialName" },
+      { id: "machineName", header: "Machine", accessorKey: "machineName", meta: { className: "min-w-40" } },
+      { id: "cutterName", header: "Cutter", accessorKey: "cutterName", meta: { className: "min-w-44" } },
+      { id: "materialName", header: "Material", accessorKey: "materialName", meta: { className: "min-w-44" } },
       {
         id: "rpm",
         header: "Spindle speed",

@@ -15,7 +15,7 @@ import "./setup-card.css";
 
 function Item({ label, children }: { label: string; children: ReactNode }) {
   return (
-    <div className="flex items-baseline justify-between gap-3 border-b border-rule/70 py-1">
+    <div className="flex items-baseline justify-between gap-3 border-b border-rule/70 py-1 print:py-0.5">
       <dt className="text-muted">{label}</dt>
       <dd className="text-right font-medium">{children}</dd>
     </div>
@@ -66,7 +66,7 @@ export function SetupCard({
       </div>
 
       <article aria-labelledby="card-title" className="setup-card rounded-lg border border-ink bg-white p-6 text-sm text-ink print:rounded-none print:border-0 print:p-0">
-        <header className="flex items-start justify-between gap-4 border-b-2 border-ink pb-3">
+        <header className="border-b-2 border-ink pb-3 print:pb-2">
           <div className="min-w-0">
             <p className="text-xs tracking-wide uppercase">Setup card</p>
             <h1 id="card-title" className="text-xl leading-tight font-semibold">
@@ -77,13 +77,9 @@ export function SetupCard({
               {dateText.format(new Date())}
             </p>
           </div>
-          <figure className="flex shrink-0 flex-col items-center gap-1">
-            <QrImage value={logUrl} alt="QR code: open the cut-log form for this recipe" size={112} />
-            <figcaption className="text-center text-[0.65rem] leading-tight">Scan to log the cut</figcaption>
-          </figure>
         </header>
 
-        <div className="mt-3 grid gap-x-8 gap-y-3 sm:grid-cols-2 print:grid-cols-2">
+        <div className="mt-3 print:mt-2 grid gap-x-8 gap-y-3 sm:grid-cols-2 print:grid-cols-2">
           <section aria-labelledby="card-setup">
             <h2 id="card-setup" className="mb-1 text-xs font-semibold tracking-wide uppercase">
               Setup
@@ -175,13 +171,19 @@ export function SetupCard({
             <h2 id="card-notes" className="mb-1 text-xs font-semibold tracking-wide uppercase">
               Notes
             </h2>
-            <p className="text-xs whitespace-pre-line">{recipe.notes}</p>
+            <p className="text-xs whitespace-pre-line print:line-clamp-4">{recipe.notes}</p>
           </section>
         )}
 
-        <SafetyBand className="mt-4 border-ink bg-white" notes={rec?.safetyNotes} />
+        <div className="mt-4 flex items-stretch gap-4 print:mt-2">
+          <SafetyBand className="flex-1 border-ink bg-white print:py-2" notes={rec?.safetyNotes} compact />
+          <figure className="flex shrink-0 flex-col items-center justify-center gap-1">
+            <QrImage value={logUrl} alt="QR code: open the cut-log form for this recipe" size={112} />
+            <figcaption className="text-center text-[0.65rem] leading-tight">Scan to log the cut</figcaption>
+          </figure>
+        </div>
 
-        <footer className="mt-3 flex flex-wrap justify-between gap-2 border-t border-ink pt-2 text-[0.65rem]">
+        <footer className="mt-3 print:mt-2 flex flex-wrap justify-between gap-2 border-t border-ink pt-2 text-[0.65rem]">
           <span>Cut log: {logUrl}</span>
           <span>Ringdown · {recipe.machineName}</span>
         </footer>
