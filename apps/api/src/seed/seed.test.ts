@@ -28,11 +28,12 @@ describe("demo seed", () => {
     await seedDemo((l) => lines.push(l));
     expect(await counts()).toEqual(first);
     expect(first).toEqual({ users: 6, shops: 2, memberships: 7 });
-    expect(lines.slice(-4)).toEqual([
+    expect(lines.slice(-5)).toEqual([
       "demo seed: people and shops — already present",
       "demo seed: team plans — already present",
       "demo seed: library (machines, cutters, assemblies) — already present",
       "demo seed: recipes (revisions, status history, cut logs) — already present",
+      "demo seed: vibration profiles (stiffness and backlash readings, analysed recordings) — already present",
     ]);
   });
 
