@@ -5,6 +5,7 @@ import * as m0001 from "./migrations/0001-users-shops-memberships.js";
 import * as m0002 from "./migrations/0002-sessions-and-rate-limits.js";
 import * as m0003 from "./migrations/0003-library-and-recipes.js";
 import * as m0010 from "./migrations/0010-recipe-ladders-and-list-indexes.js";
+import * as m0011 from "./migrations/0011-recipe-operation-index.js";
 import * as m0020 from "./migrations/0020-team-and-billing.js";
 import * as m0030 from "./migrations/0030-vibration-profiles.js";
 import { syncGlobalMaterials } from "../modules/materials/global-materials.sync.js";
@@ -17,6 +18,7 @@ const migrations: Array<{ name: string } & Migration> = [
   { name: "0002-sessions-and-rate-limits", ...m0002 },
   { name: "0003-library-and-recipes", ...m0003 },
   { name: "0010-recipe-ladders-and-list-indexes", ...m0010 },
+  { name: "0011-recipe-operation-index", ...m0011 },
   { name: "0020-team-and-billing", ...m0020 },
   { name: "0030-vibration-profiles", ...m0030 },
 ];
