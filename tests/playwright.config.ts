@@ -71,7 +71,7 @@ export default defineConfig({
       PORT: String(port),
       DATABASE_URL: databaseUrl,
       SEED_DEMO: "true",
-      WEB_DIST: fileURLToPath(new URL("../apps/web/dist", import.meta.url)),
+      WEB_DIST: process.env.E2E_WEB_DIST ?? fileURLToPath(new URL("../apps/web/dist", import.meta.url)),
       APP_URL: baseURL,
     },
   },

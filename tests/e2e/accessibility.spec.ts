@@ -2,7 +2,10 @@ import AxeBuilder from "@axe-core/playwright";
 import { expect, test, type Page } from "@playwright/test";
 import { accountMenu, newAccount, shopSwitcher, signUp } from "./support";
 
-// axe-core checks the rendered pages against WCAG 2.x A and AA rules.
+// axe-core checks the rendered pages against WCAG 2.x A and AA rules. Each analysis is CPU-heavy
+// (seconds on a busy two-core runner), so these tests get the longer "slow" timeout.
+test.slow();
+
 async function violations(page: Page, include?: string) {
   let builder = new AxeBuilder({ page }).withTags(["wcag2a", "wcag2aa", "wcag21a", "wcag21aa"]);
   if (include) builder = builder.include(include);
