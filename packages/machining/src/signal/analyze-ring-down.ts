@@ -2,6 +2,9 @@ import FFT from "fft.js";
 import { requirePositive } from "../internal/require.js";
 import { parabolicPeak } from "./parabolic-peak.js";
 
+/** FFT instances by size (their twiddle tables are costly to build). */
+const ffts = new Map<number, FFT>();
+
 /** Frequency and damping of a free decay (tap test). */
 export interface RingDownAnalysis {
   /** Damped frequency fd from the spectrum peak [Hz] */
@@ -71,8 +74,12 @@ export function analyzeRingDown(input: {
   const notes: string[] = [];
   const size = Math.min(2 ** 22, 2 ** Math.ceil(Math.log2(8 * n)));
   if (size < 8 * n) notes.push("Long record: spectrum zero-padding limited to 2^22 points.");
-  const fft = new FFT(size);
-  const spectrum = fft.createComplexArray() as number[];
+  let fft = ffts.get(size);
+  if (!fft) {
+    fft = new FFT(size);
+    ffts.set(size, fft);
+  }
+  const spectrum = new Float64Array(2 * size);
 
   let signal = x;
   if (input.bandHz) {
@@ -98,7 +105,7 @@ export function analyzeRingDown(input: {
       spectrum[2 * k]! *= g;
       spectrum[2 * k + 1]! *= g;
     }
-    const back = fft.createComplexArray() as number[];
+    const back = new Float64Array(2 * size);
     fft.inverseTransform(back, spectrum);
     signal = new Float64Array(n);
     for (let i = 0; i < n; i++) signal[i] = back[2 * i]!;
@@ -114,7 +121,11 @@ export function analyzeRingDown(input: {
   fft.realTransform(spectrum, buf);
   const half = size / 2;
   const mag = new Float64Array(half + 1);
-  for (let k = 0; k <= half; k++) mag[k] = Math.hypot(spectrum[2 * k]!, spectrum[2 * k + 1]!);
+  for (let k = 0; k <= half; k++) {
+    const re = spectrum[2 * k]!;
+    const im = spectrum[2 * k + 1]!;
+    mag[k] = Math.sqrt(re * re + im * im);
+  }
   const df = sampleRateHz / size;
   const kMin = input.bandHz ? Math.max(1, Math.ceil(input.bandHz.minHz / df)) : 1;
   const kMax = input.bandHz ? Math.min(half - 1, Math.floor(input.bandHz.maxHz / df)) : half - 1;
