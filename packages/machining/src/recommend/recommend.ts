@@ -538,18 +538,23 @@ function forbiddenIntervals(ctx: Context): Forbidden[] {
  * and explains every number.
  *
  * Order of work:
- *  1. Speed: n = 1000·vc/(π·D_eff) at the middle of the material's speed range (or the preferred
- *     speed), capped by the spindle, the cutter maker's maximum and the rim-speed rule for large bits.
- *     If at that speed the tooth-passing frequency is within the resonance margin of a mode or in an
- *     avoided band, the cut is predicted unstable, or the feed/power ceiling would need a lower
- *     speed, the nearest speed that satisfies them (within the material's speed range when possible)
- *     is chosen; with dial speeds only the dial settings are candidates.
+ *  1. Speed target: n = 1000·vc/(π·D_eff) at the middle of the material's speed range (or the
+ *     preferred speed), capped by the spindle, the cutter maker's maximum and the rim-speed rule for
+ *     large bits, raised to the spindle minimum.
  *  2. Chip: nominal chip load from the material table (× operation factor), raised by the radial
  *     chip-thinning factor 1/sin φe (and the ball/bull contact factor) so the maximum chip equals it.
- *  3. Ceilings at that speed: feed (chip reduced), power and deflection (chip reduced to no less than
- *     half, then depth reduced), stability (depth reduced to safety factor × boundary).
- *  4. Checks: rubbing (least-loaded flute's chip vs max(material minimum, edge hone)), runout, stick-out,
- *     rim speed, climb milling with backlash, deflection-sensitive engagement.
+ *     Deflection does not depend on speed, so it is settled first: chip reduced to no less than half
+ *     (and never into rubbing), then depth.
+ *  3. Speed choice: if at the target the tooth-passing frequency is within the resonance margin of a
+ *     mode or in an avoided band, the depth is predicted to chatter (ZOA, X/Y modes, both feed axes
+ *     unless given), or the feed, power or speed range is not met, the nearest speed that meets them
+ *     is chosen (interval edges, then the lobe envelope); failing that, the speed that removes the
+ *     most material once the depth is reduced. With dial speeds only the dial settings are candidates.
+ *  4. Ceilings at that speed: feed (chip reduced), power (chip, then depth), stability (depth reduced
+ *     to safety factor × the refined boundary).
+ *  5. Checks: rubbing (least-loaded flute's chip vs max(material minimum, edge hone)), runout,
+ *     stick-out, rim speed, climb milling with backlash, deflection-sensitive engagement, any limit
+ *     that could not be held.
  *
  * Models: Kienzle force at the mean chip thickness (or unit power), linear mechanistic milling forces
  * (straight teeth, worst flute with runout), stepped-cantilever cutter on the softer machine axis,
