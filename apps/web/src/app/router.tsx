@@ -18,6 +18,10 @@ export const routes: RouteObject[] = [
     children: [
       { path: "sign-in", lazy: page(() => import("./routes/auth/sign-in"), (m) => m.SignInRoute) },
       { path: "sign-up", lazy: page(() => import("./routes/auth/sign-up"), (m) => m.SignUpRoute) },
+      { path: "forgot-password", lazy: page(() => import("./routes/public/forgot-password"), (m) => m.ForgotPasswordRoute) },
+      { path: "reset-password/:token", lazy: page(() => import("./routes/public/reset-password"), (m) => m.ResetPasswordRoute) },
+      { path: "invitations/:token", lazy: page(() => import("./routes/public/accept-invitation"), (m) => m.AcceptInvitationRoute) },
+      { path: "dev/mail", lazy: page(() => import("./routes/public/dev-mail"), (m) => m.DevMailRoute) },
       {
         // Signed-in pages without the rail: the printable setup card and the phone cut-log form (its QR target).
         lazy: page(() => import("./routes/app/focused-layout"), (m) => m.FocusedLayoutRoute),

@@ -1,5 +1,5 @@
-import { AreaPlaceholder } from "@/features/shell/components/area-placeholder";
+import { BillingPage } from "@/features/billing/components/billing-page";
 
 export function BillingRoute() {
-  return <AreaPlaceholder area="billing" />;
+  return <BillingPage />;
 }

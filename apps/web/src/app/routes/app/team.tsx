@@ -1,5 +1,5 @@
-import { AreaPlaceholder } from "@/features/shell/components/area-placeholder";
+import { TeamPage } from "@/features/team/components/team-page";
 
 export function TeamRoute() {
-  return <AreaPlaceholder area="team" />;
+  return <TeamPage />;
 }

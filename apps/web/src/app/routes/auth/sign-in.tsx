@@ -29,6 +29,11 @@ export function SignInRoute() {
       }
     >
       <SignInForm onSignedIn={() => void navigate(next, { replace: true })} />
+      <p className="mt-4 text-center text-sm">
+        <Link to="/forgot-password" className="font-medium text-brand underline underline-offset-4">
+          Forgot password?
+        </Link>
+      </p>
     </AuthLayout>
   );
 }
