@@ -323,6 +323,3 @@ export async function seedVibration(storage: Storage = new LocalDirectoryStorage
   }
   return created;
 }
-
-/** For tests: the seeded readings and each machine's worst case per direction. */
-export const demoVibrationReadings = { heron: heronReadings(), wren: wrenReadings(), worstCase };
