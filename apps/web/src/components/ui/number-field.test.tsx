@@ -118,4 +118,14 @@ describe("NumberField", () => {
     await waitFor(() => expect(onSubmit).toHaveBeenCalledTimes(1));
     expect(onSubmit.mock.calls[0]?.[0]).toMatchObject({ diameterMm: 6, maxRpm: null });
   });
+
+  it("asks for a value in words when the schema has no wording of its own for an empty box", async () => {
+    const user = userEvent.setup();
+    const onSubmit = vi.fn();
+    renderAs("metric", <TestForm defaults={{ diameterMm: 6, maxRpm: null, accelerationMmPerS2: 1000 }} onSubmit={onSubmit} />);
+    await user.clear(screen.getByLabelText(/Acceleration/));
+    await user.click(screen.getByRole("button", { name: "Save" }));
+    expect(await screen.findByText("Enter acceleration")).toBeInTheDocument();
+    expect(onSubmit).not.toHaveBeenCalled();
+  });
 });

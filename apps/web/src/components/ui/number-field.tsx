@@ -50,7 +50,9 @@ export function NumberField({ name, label, measure, hint, system, nullable = fal
   }, [value, shownIn, measure]);
 
   const raw = (get(formState.errors, name) as { message?: string } | undefined)?.message;
-  const error = raw ? localiseLimitMessage(raw, measure, shownIn) : undefined;
+  // A schema without its own wording answers an empty box with zod's "expected number" text.
+  const plain = raw && /expected number/i.test(raw) ? `Enter ${typeof label === "string" ? label.toLowerCase() : "a number"}` : raw;
+  const error = plain ? localiseLimitMessage(plain, measure, shownIn) : undefined;
   const unit = unitOf(measure, shownIn);
   const describedBy = error ? `${id}-error` : hint ? `${id}-hint` : undefined;
 

@@ -17,6 +17,7 @@ export function getAssemblies(shopId: string, params: AssemblyListParams, signal
 export const assembliesQueryOptions = (shopId: string, params: AssemblyListParams) =>
   queryOptions({
     queryKey: [...assembliesKey(shopId), "list", params] as const,
+    enabled: shopId !== "",
     queryFn: ({ signal }) => getAssemblies(shopId, params, signal),
   });
 

@@ -12,6 +12,7 @@ export const cutterChoicesQueryOptions = (shopId: string) =>
   queryOptions({
     // Under the cutters' key, so a change to the cutter list refreshes these choices too.
     queryKey: ["shops", shopId, "cutters", "choices"] as const,
+    enabled: shopId !== "",
     queryFn: ({ signal }) => getCutterChoices(shopId, signal),
   });
 

@@ -17,6 +17,7 @@ export function getCutters(shopId: string, params: CutterListParams, signal?: Ab
 export const cuttersQueryOptions = (shopId: string, params: CutterListParams) =>
   queryOptions({
     queryKey: [...cuttersKey(shopId), "list", params] as const,
+    enabled: shopId !== "",
     queryFn: ({ signal }) => getCutters(shopId, params, signal),
     // While the next page or filter loads, the table keeps the rows it has.
     placeholderData: keepPreviousData,

@@ -15,7 +15,7 @@ import { shapeOptions, shapesWithTipAngle, toolMaterialOptions } from "../labels
 
 type CutterFormValues = CutterCreateBody;
 
-function defaultsFor(cutter: Cutter | null): CutterFormValues {
+function defaultsFor(cutter: Cutter | null, mayApprove: boolean): CutterFormValues {
   if (cutter) {
     const { id: _id, shopId: _shopId, status: _status, createdAt: _c, updatedAt: _u, deletedAt: _d, ...body } = cutter;
     return { ...body };
@@ -25,7 +25,7 @@ function defaultsFor(cutter: Cutter | null): CutterFormValues {
     name: "",
     shape: "flat",
     toolMaterial: "carbide",
-    status: "proposed",
+    status: mayApprove ? "approved" : "proposed",
     diameterMm: Number.NaN,
     flutes: Number.NaN,
     fluteLengthMm: Number.NaN,
@@ -108,7 +108,7 @@ export function CutterFormSheet({
         id={formId}
         aria-label={cutter ? `Edit ${cutter.name}` : "New cutter"}
         schema={cutterCreateBodySchema}
-        defaultValues={defaultsFor(cutter)}
+        defaultValues={defaultsFor(cutter, mayApprove)}
         onSubmit={async (values) => {
           if (cutter) {
             const { status: _status, ...patch } = values;

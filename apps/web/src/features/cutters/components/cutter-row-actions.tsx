@@ -4,14 +4,14 @@ import { Button } from "@/components/ui/button";
 
 export type CutterAction = { kind: "edit" } | { kind: "view" } | { kind: "transition"; to: CutterStatus } | { kind: "delete" } | { kind: "restore" };
 
-/** The status moves a curator may make from each status. */
+/**
+ * The status move a curator makes from each status, one per row to keep rows short: a proposal
+ * is approved (or deleted if declined), an approved cutter retired, a retired one reinstated.
+ */
 export function transitionsFrom(status: CutterStatus): Array<{ to: CutterStatus; label: string }> {
   switch (status) {
     case "proposed":
-      return [
-        { to: "approved", label: "Approve" },
-        { to: "retired", label: "Retire" },
-      ];
+      return [{ to: "approved", label: "Approve" }];
     case "approved":
       return [{ to: "retired", label: "Retire" }];
     case "retired":

@@ -12,6 +12,7 @@ export function getMachineDefaults(shopId: string, kind: MachineKind, signal?: A
 export const machineDefaultsQueryOptions = (shopId: string, kind: MachineKind) =>
   queryOptions({
     queryKey: [...machinesKey(shopId), "defaults", kind] as const,
+    enabled: shopId !== "",
     queryFn: ({ signal }) => getMachineDefaults(shopId, kind, signal),
     staleTime: Infinity,
   });

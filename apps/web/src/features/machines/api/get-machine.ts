@@ -11,6 +11,7 @@ export function getMachine(shopId: string, machineId: string, signal?: AbortSign
 export const machineQueryOptions = (shopId: string, machineId: string) =>
   queryOptions({
     queryKey: [...machinesKey(shopId), "detail", machineId] as const,
+    enabled: shopId !== "",
     queryFn: ({ signal }) => getMachine(shopId, machineId, signal),
   });
 

@@ -23,6 +23,7 @@ export function getMachines(shopId: string, params: MachineListParams, signal?: 
 export const machinesQueryOptions = (shopId: string, params: MachineListParams) =>
   queryOptions({
     queryKey: [...machinesKey(shopId), "list", params] as const,
+    enabled: shopId !== "",
     queryFn: ({ signal }) => getMachines(shopId, params, signal),
     placeholderData: keepPreviousData,
   });

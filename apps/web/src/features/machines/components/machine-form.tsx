@@ -347,7 +347,13 @@ function SaveBar({ form, readOnly, submitLabel, isNew }: { form: UseFormReturn<M
   const { isDirty, isSubmitting } = form.formState;
   if (readOnly) return null;
   return (
-    <div className="sticky bottom-0 z-20 -mx-1 flex flex-wrap items-center justify-end gap-3 rounded-lg border border-rule bg-surface/95 px-4 py-3 shadow-[0_-4px_12px_-8px_rgb(34_37_42/0.3)] backdrop-blur">
+    <div
+      className={cn(
+        "-mx-1 flex flex-wrap items-center justify-end gap-3 rounded-lg border border-rule bg-surface/95 px-4 py-3",
+        // Kept in view while there is something to save.
+        (isNew || isDirty) && "sticky bottom-0 z-20 shadow-[0_-4px_12px_-8px_rgb(34_37_42/0.3)] backdrop-blur",
+      )}
+    >
       <span className="mr-auto text-sm text-muted" aria-live="polite">
         {isNew ? "Not saved yet." : isDirty ? "Unsaved changes." : "All changes saved."}
       </span>

@@ -106,7 +106,7 @@ export function MachinesPage() {
             </Link>
           ),
       },
-      { id: "kind", header: "Kind", accessorFn: (m) => kindLabels[m.kind] },
+      { id: "kind", header: "Kind", accessorFn: (m) => kindLabels[m.kind], meta: { className: "whitespace-nowrap" } },
       { id: "spindle", header: "Spindle", meta: { numeric: true }, accessorFn: (m) => m.spindle.maxRpm, cell: ({ row }) => <SpindleRange m={row.original} /> },
       { id: "power", header: "Power", meta: { numeric: true }, accessorFn: (m) => m.spindle.powerW, cell: ({ getValue }) => <MeasureValue value={getValue() as number} measure={measures.power} /> },
       ...(["x", "y", "z"] as const).map<ColumnDef<Machine, unknown>>((axis) => ({
@@ -208,44 +208,38 @@ export function MachinesPage() {
             </EmptyState>
           )
         }
-        rowActions={(m) =>
-          m.deletedAt ? (
-            mayEdit && (
-              <Button
-                size="sm"
-                variant="secondary"
-                aria-label={`Restore ${m.name}`}
-                pending={restore.isPending && restore.variables === m.id}
-                onClick={() =>
-                  restore.mutate(m.id, {
-                    onSuccess: (r) => setNotice({ tone: "ok", text: `${r.name} is back in the machine list.` }),
-                    onError: (e) => setNotice({ tone: "limit", text: e.message }),
-                  })
-                }
-              >
-                Restore
-              </Button>
-            )
-          ) : (
-            <>
-              <Link to={`/machines/${m.id}`} aria-label={`Open ${m.name}`} className="inline-flex h-8 items-center rounded-md px-2.5 text-sm font-medium text-ink hover:bg-ink/5">
-                Open
-              </Link>
-              {mayEdit && (
-                <Button
-                  size="sm"
-                  variant="quiet"
-                  aria-label={`Delete ${m.name}`}
-                  onClick={() => {
-                    remove.reset();
-                    setDeleting(m);
-                  }}
-                >
-                  Delete
-                </Button>
-              )}
-            </>
-          )
+        rowActions={
+          mayEdit
+            ? (m) =>
+                m.deletedAt ? (
+                  <Button
+                    size="sm"
+                    variant="secondary"
+                    aria-label={`Restore ${m.name}`}
+                    pending={restore.isPending && restore.variables === m.id}
+                    onClick={() =>
+                      restore.mutate(m.id, {
+                        onSuccess: (r) => setNotice({ tone: "ok", text: `${r.name} is back in the machine list.` }),
+                        onError: (e) => setNotice({ tone: "limit", text: e.message }),
+                      })
+                    }
+                  >
+                    Restore
+                  </Button>
+                ) : (
+                  <Button
+                    size="sm"
+                    variant="quiet"
+                    aria-label={`Delete ${m.name}`}
+                    onClick={() => {
+                      remove.reset();
+                      setDeleting(m);
+                    }}
+                  >
+                    Delete
+                  </Button>
+                )
+            : undefined
         }
       />
       <NewMachineDialog open={adding} onClose={() => setAdding(false)} />

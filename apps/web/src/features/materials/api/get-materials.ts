@@ -23,6 +23,7 @@ export function getMaterials(shopId: string, params: MaterialListParams, signal?
 export const materialsQueryOptions = (shopId: string, params: MaterialListParams) =>
   queryOptions({
     queryKey: [...materialsKey(shopId), "list", params] as const,
+    enabled: shopId !== "",
     queryFn: ({ signal }) => getMaterials(shopId, params, signal),
     placeholderData: keepPreviousData,
   });

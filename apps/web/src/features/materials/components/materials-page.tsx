@@ -120,18 +120,24 @@ export function MaterialsPage() {
         header: "Name",
         accessorKey: "name",
         cell: ({ row }) => (
-          <div className="min-w-52">
-            <button type="button" onClick={() => setViewing(row.original)} className="cursor-pointer text-left font-medium text-ink hover:text-brand hover:underline">
+          <div className="min-w-48">
+            <button
+              type="button"
+              onClick={() => setViewing(row.original)}
+              aria-haspopup="dialog"
+              className="cursor-pointer text-left font-medium text-ink underline decoration-rule underline-offset-2 hover:text-brand hover:decoration-brand"
+            >
               {row.original.name}
             </button>
             {row.original.hardness && <div className="text-xs text-muted">{row.original.hardness}</div>}
           </div>
         ),
       },
-      { id: "group", header: "Group", accessorFn: (m) => groupLabels[m.group] },
+      { id: "group", header: "Group", accessorFn: (m) => groupLabels[m.group], meta: { className: "whitespace-nowrap" } },
       {
         id: "origin",
         header: "Origin",
+        meta: { className: "whitespace-nowrap" },
         accessorFn: (m) => (m.readOnly ? originLabels.global : originLabels.shop),
         cell: ({ row }) =>
           row.original.deletedAt ? (
@@ -215,7 +221,7 @@ export function MaterialsPage() {
           <label htmlFor={`${id}-scope`} className="text-xs font-medium text-muted">
             Origin
           </label>
-          <Select id={`${id}-scope`} value={scope ?? ""} onChange={(e) => setParam("scope", e.target.value)} options={scopeOptions} placeholder="Reference and shop's own" disabled={deleted} />
+          <Select id={`${id}-scope`} value={scope ?? ""} onChange={(e) => setParam("scope", e.target.value)} options={scopeOptions} placeholder="Any origin" disabled={deleted} />
         </div>
         {mayEdit && (
           <label className="flex h-10 cursor-pointer items-center gap-2 text-sm text-ink">
@@ -257,27 +263,24 @@ export function MaterialsPage() {
             </EmptyState>
           )
         }
-        rowActions={(m) => (
-          <>
-            <Button size="sm" variant="quiet" onClick={() => setViewing(m)} aria-label={`Details of ${m.name}`}>
-              Details
-            </Button>
-            {mayEdit && !m.deletedAt && (m.readOnly ? (
-              <Button size="sm" variant="quiet" onClick={() => onCopy(m)} disabled={copy.isPending} aria-label={`Copy ${m.name} to adjust`}>
-                Copy to adjust
-              </Button>
-            ) : (
-              <Button size="sm" variant="quiet" onClick={() => setEditing(m)} aria-label={`Edit ${m.name}`}>
-                Edit
-              </Button>
-            ))}
-            {mayEdit && m.deletedAt && (
-              <Button size="sm" variant="secondary" onClick={() => onRestore(m)} disabled={restore.isPending} aria-label={`Restore ${m.name}`}>
-                Restore
-              </Button>
-            )}
-          </>
-        )}
+        rowActions={
+          mayEdit
+            ? (m) =>
+                m.deletedAt ? (
+                  <Button size="sm" variant="secondary" onClick={() => onRestore(m)} disabled={restore.isPending} aria-label={`Restore ${m.name}`}>
+                    Restore
+                  </Button>
+                ) : m.readOnly ? (
+                  <Button size="sm" variant="quiet" onClick={() => onCopy(m)} disabled={copy.isPending} aria-label={`Copy ${m.name} to adjust`}>
+                    Copy to adjust
+                  </Button>
+                ) : (
+                  <Button size="sm" variant="quiet" onClick={() => setEditing(m)} aria-label={`Edit ${m.name}`}>
+                    Edit
+                  </Button>
+                )
+            : undefined
+        }
       />
       {list.data && list.data.total > list.data.items.length && (
         <p className="text-sm text-muted">
