@@ -275,37 +275,40 @@ export function DataTable<T>({
             {isFetching && <Spinner className="size-3.5" label="Refreshing" />}
             Rows {formatNumber(first)}–{formatNumber(last)} of {formatNumber(total)}
           </p>
-          <div className="flex items-center gap-3">
-            <label className="flex items-center gap-2">
-              <span>Rows per page</span>
-              <select
-                value={size}
-                onChange={(event) => table.setPagination({ pageIndex: 0, pageSize: Number(event.target.value) })}
-                className="h-8 rounded-md border border-rule-strong bg-surface px-2 text-sm text-ink"
-              >
-                {[...new Set([...pageSizeOptions, size])]
-                  .sort((a, b) => a - b)
-                  .map((n) => (
-                    <option key={n} value={n}>
-                      {n}
-                    </option>
-                  ))}
-              </select>
-            </label>
-            <span className="tabular">
-              Page {formatNumber(pageIndex + 1)} of {formatNumber(pageCount)}
-            </span>
-            <div className="flex gap-1">
-              <Button variant="secondary" size="sm" onClick={() => table.previousPage()} disabled={!table.getCanPreviousPage()}>
-                <ChevronLeft className="size-4" aria-hidden />
-                Previous
-              </Button>
-              <Button variant="secondary" size="sm" onClick={() => table.nextPage()} disabled={!table.getCanNextPage()}>
-                Next
-                <ChevronRight className="size-4" aria-hidden />
-              </Button>
+          {/* Page controls only when there is more than one page's worth of rows. */}
+          {total > Math.min(size, ...pageSizeOptions) && (
+            <div className="flex items-center gap-3">
+              <label className="flex items-center gap-2">
+                <span>Rows per page</span>
+                <select
+                  value={size}
+                  onChange={(event) => table.setPagination({ pageIndex: 0, pageSize: Number(event.target.value) })}
+                  className="h-8 rounded-md border border-rule-strong bg-surface px-2 text-sm text-ink"
+                >
+                  {[...new Set([...pageSizeOptions, size])]
+                    .sort((a, b) => a - b)
+                    .map((n) => (
+                      <option key={n} value={n}>
+                        {n}
+                      </option>
+                    ))}
+                </select>
+              </label>
+              <span className="tabular">
+                Page {formatNumber(pageIndex + 1)} of {formatNumber(pageCount)}
+              </span>
+              <div className="flex gap-1">
+                <Button variant="secondary" size="sm" onClick={() => table.previousPage()} disabled={!table.getCanPreviousPage()}>
+                  <ChevronLeft className="size-4" aria-hidden />
+                  Previous
+                </Button>
+                <Button variant="secondary" size="sm" onClick={() => table.nextPage()} disabled={!table.getCanNextPage()}>
+                  Next
+                  <ChevronRight className="size-4" aria-hidden />
+                </Button>
+              </div>
             </div>
-          </div>
+          )}
         </nav>
       )}
     </div>

@@ -28,6 +28,7 @@ const previewColumns: Array<ColumnDef<CutterImportRow, unknown>> = [
   {
     id: "result",
     header: "Check",
+    meta: { className: "whitespace-nowrap" },
     accessorFn: (row) => Object.keys(row.errors).length,
     cell: ({ row }) => {
       const problems = Object.keys(row.original.errors).length;
@@ -62,7 +63,13 @@ const previewColumns: Array<ColumnDef<CutterImportRow, unknown>> = [
       row.original.cutter ? (
         <MeasureValue value={row.original.cutter.diameterMm} measure={measures.length} />
       ) : (
-        <span className="text-muted">{row.original.values.diameter_mm ?? row.original.values.diameter_in ?? "—"}</span>
+        <span className="text-muted">
+          {row.original.values.diameter_mm
+            ? `${row.original.values.diameter_mm}\u202Fmm`
+            : row.original.values.diameter_in
+              ? `${row.original.values.diameter_in}\u202Fin`
+              : "—"}
+        </span>
       ),
   },
   {
