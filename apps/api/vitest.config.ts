@@ -1,8 +1,17 @@
 /// <reference types="vitest/config" />
+import { fileURLToPath } from "node:url";
 import { defineConfig, defaultServerConditions } from "vite";
 
 export default defineConfig({
   // Workspace packages export TypeScript source under the "source" condition.
+  // The global setup runs outside the test environments and ignores the ssr conditions; on a fresh
+  // clone no package has been built to dist yet, so point it at the workspace sources directly.
+  resolve: {
+    alias: {
+      "@ringdown/contracts": fileURLToPath(new URL("../../packages/contracts/src/index.ts", import.meta.url)),
+      "@ringdown/machining": fileURLToPath(new URL("../../packages/machining/src/index.ts", import.meta.url)),
+    },
+  },
   ssr: { resolve: { conditions: ["source", ...defaultServerConditions] } },
   test: {
     environment: "node",
