@@ -1,5 +1,8 @@
-import { expect, test, type Browser, type Page } from "@playwright/test";
+import { expect as baseExpect, test, type Browser, type Page } from "@playwright/test";
 import { signIn, unique } from "./support";
+
+// Pages wait on the server and the engine; a busy CI runner can make that slow.
+const expect = baseExpect.configure({ timeout: 30_000 });
 
 // Logins of the invented demo scenario (apps/api/src/seed/README.md), seeded with SEED_DEMO=true.
 const programmer = { email: "teodor@quillfeather.example", password: "demo-programmer-2026" };
@@ -49,7 +52,7 @@ async function scoreRung(page: Page, rung: number, scores: { edge: number; chips
 }
 
 test("a recipe goes from the planner through a test-cut ladder, proof and approval to the operator's phone", async ({ browser }) => {
-  // Four people and a phone on two shared cores: generous, as the other journeys.
+  // Four people and a phone in one test: a generous budget.
   test.setTimeout(420_000);
   const name = `Journey profile ${unique()}`;
 

@@ -1,5 +1,4 @@
 import type { Operation, RecipeStatus, Role } from "@ringdown/contracts";
-import type { BadgeTone } from "@/components/ui/badge";
 
 export const statusLabels: Record<RecipeStatus, string> = {
   draft: "Draft",
@@ -7,15 +6,6 @@ export const statusLabels: Record<RecipeStatus, string> = {
   proven: "Proven",
   approved: "Approved",
   retired: "Retired",
-};
-
-/** Colour only where it says something: approved is the good state, proven rests on measured cuts. */
-export const statusTones: Record<RecipeStatus, BadgeTone> = {
-  draft: "neutral",
-  trial: "brand",
-  proven: "measured",
-  approved: "ok",
-  retired: "neutral",
 };
 
 export const operationLabels: Record<Operation, string> = {

@@ -88,8 +88,9 @@ function LogForShop({ shop, recipeId }: { shop: ActiveShop; recipeId: string }) 
         defaults={{
           rpm: rec.result.rpm,
           feedMmPerMin: rec.result.feedMmPerMin,
-          axialDepthMm: used?.axialDepthMm ?? rec.params.axialDepthMm,
-          radialDepthMm: used?.radialDepthMm ?? rec.params.radialDepthMm,
+          // To the micrometre: what a person would read off a setup sheet.
+          axialDepthMm: Number((used?.axialDepthMm ?? rec.params.axialDepthMm).toFixed(3)),
+          radialDepthMm: Number((used?.radialDepthMm ?? rec.params.radialDepthMm).toFixed(3)),
         }}
         onLogged={setLogged}
       />

@@ -51,7 +51,8 @@ export function CapturedMail() {
         </Card>
       )}
       {mail.data?.items.map((m) => (
-        <Card key={m.id}>
+        <article key={m.id} aria-label={`Message to ${m.to.join(", ")}: ${m.subject}`}>
+        <Card>
           <CardHeader
             title={m.subject || "(no subject)"}
             description={`To ${m.to.join(", ")} · from ${m.from} · ${timeFormat.format(new Date(m.receivedAt))}`}
@@ -79,6 +80,7 @@ export function CapturedMail() {
             )}
           </CardBody>
         </Card>
+        </article>
       ))}
     </div>
   );

@@ -20,7 +20,7 @@ import { Field, inputClass } from "@/components/ui/field";
 import { LoadingState } from "@/components/ui/spinner";
 import { cn } from "@/lib/cn";
 import { useAssemblies } from "../api/get-assemblies";
-import { useCutter } from "../api/get-cutters";
+import { useCutter, useCutters } from "../api/get-cutters";
 import { useMachines } from "../api/get-machines";
 import { useMaterials } from "../api/get-materials";
 import {
@@ -91,7 +91,16 @@ export function Planner({ shopId, role, system, initial, evidence }: PlannerProp
   const machine = machines.data?.items.find((m) => m.id === values.machineId) ?? null;
   const assemblies = useAssemblies(shopId, values.machineId || null, Boolean(values.machineId));
   const assembly = assemblies.data?.items.find((a) => a.id === values.assemblyId) ?? null;
-  const cutter = useCutter(shopId, assembly?.cutterId ?? null);
+  // The cutter comes from the shop's cutter list (loaded alongside the machines); only a cutter
+  // missing from it (e.g. beyond the first page) is fetched on its own.
+  const cutters = useCutters(shopId);
+  const listed = assembly ? (cutters.data?.items.find((c) => c.id === assembly.cutterId) ?? null) : null;
+  const single = useCutter(shopId, assembly && cutters.isSuccess && !listed ? assembly.cutterId : null);
+  const cutter = listed
+    ? { data: listed, isPending: false, isError: false as const, error: null }
+    : assembly && cutters.isPending
+      ? { data: undefined, isPending: true, isError: false as const, error: null }
+      : single;
   const material = materials.data?.items.find((m) => m.id === values.materialId) ?? null;
 
   // Switching metric/imperial rewrites the typed lengths, so the cut stays the same.

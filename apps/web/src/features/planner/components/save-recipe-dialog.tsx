@@ -1,4 +1,6 @@
 import type { Operation, RecipeParams, RecipeResultSummary } from "@ringdown/contracts";
+import { useEffect } from "react";
+import { useFormContext } from "react-hook-form";
 import { useNavigate } from "react-router-dom";
 import { z } from "zod";
 import { Button } from "@/components/ui/button";
@@ -64,7 +66,8 @@ export function SaveRecipeDialog({ shopId, open, onClose, body }: { shopId: stri
         {({ register, formState }) => (
           <>
             <FormError />
-            <TextField name="name" label="Recipe name" autoFocus />
+            <TextField name="name" label="Recipe name" />
+            <FocusField name="name" />
             <div className="flex flex-col gap-1.5">
               <label htmlFor="save-recipe-notes" className="text-sm font-medium text-ink">
                 Notes <span className="font-normal text-muted">(optional)</span>
@@ -90,4 +93,17 @@ export function SaveRecipeDialog({ shopId, open, onClose, body }: { shopId: stri
       </Form>
     </Dialog>
   );
+}
+
+/**
+ * Puts the caret in a field once the dialog is open: the native dialog focuses its first button
+ * when it opens (after this mounts), so the focus waits a tick.
+ */
+function FocusField({ name }: { name: string }) {
+  const { setFocus } = useFormContext();
+  useEffect(() => {
+    const timer = setTimeout(() => setFocus(name, { shouldSelect: true }), 0);
+    return () => clearTimeout(timer);
+  }, [name, setFocus]);
+  return null;
 }

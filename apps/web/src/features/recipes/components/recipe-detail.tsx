@@ -228,7 +228,11 @@ export function RecipeDetail({
       <div className="grid items-start gap-6 xl:grid-cols-[minmax(0,1fr)_24rem]">
         <div className="flex min-w-0 flex-col gap-6">
           <Section title="Numbers" description={`Computed by the server for revision ${recipe.revision}.`}>
-            <RecipeNumbers recipe={recipe} system={system} />
+            <RecipeNumbers
+              recipe={recipe}
+              system={system}
+              used={server.data ? { axialDepthMm: server.data.recommendation.axialDepthMm, radialDepthMm: server.data.recommendation.radialDepthMm } : undefined}
+            />
             {recipe.result.bindingLimit ? (
               <p className="text-sm font-medium text-limit">Held back by: {recipe.result.bindingLimit.charAt(0).toLowerCase() + recipe.result.bindingLimit.slice(1)}</p>
             ) : (

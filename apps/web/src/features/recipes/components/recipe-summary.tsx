@@ -19,9 +19,24 @@ function Num({ value, measure, system, large }: { value: number | null; measure:
 }
 
 /** The numbers to set on the machine: what the server computed and stored with this revision. */
-export function RecipeNumbers({ recipe, system, className }: { recipe: Recipe; system: UnitSystem; className?: string }) {
+export function RecipeNumbers({
+  recipe,
+  system,
+  used,
+  className,
+}: {
+  recipe: Recipe;
+  system: UnitSystem;
+  /** The depths the engine cuts at (it may take less than asked, in more passes); the asked ones until known. */
+  used?: { axialDepthMm: number; radialDepthMm: number } | undefined;
+  className?: string;
+}) {
   const r = recipe.result;
   const p = recipe.params;
+  const ap = used?.axialDepthMm ?? p.axialDepthMm;
+  const ae = used?.radialDepthMm ?? p.radialDepthMm;
+  const fullWidth = recipe.operation === "slot" || recipe.operation === "ramp" || recipe.operation === "drill";
+  const passes = used && ap < p.axialDepthMm * (1 - 1e-6) ? Math.ceil(p.axialDepthMm / ap - 1e-9) : null;
   return (
     <dl className={cn("grid gap-x-8 sm:grid-cols-2", className)}>
       <Row label="Spindle speed">
@@ -33,12 +48,15 @@ export function RecipeNumbers({ recipe, system, className }: { recipe: Recipe; s
       <Row label="Chip load (programmed)">
         <Num value={r.chipLoadMm} measure={measures.chipLoad} system={system} />
       </Row>
-      <Row label="Axial depth">
-        <Num value={p.axialDepthMm} measure={measures.length} system={system} />
+      <Row label={passes ? "Axial depth per pass" : "Axial depth"}>
+        <Num value={ap} measure={measures.length} system={system} />
+        {passes && (
+          <span className="block text-xs text-muted">
+            {passes} passes for <MeasureValue value={p.axialDepthMm} measure={measures.length} system={system} />
+          </span>
+        )}
       </Row>
-      <Row label="Radial depth">
-        <Num value={recipe.operation === "slot" || recipe.operation === "ramp" || recipe.operation === "drill" ? null : p.radialDepthMm} measure={measures.length} system={system} />
-      </Row>
+      <Row label="Radial depth">{fullWidth ? <span className="text-muted">full width</span> : <Num value={ae} measure={measures.length} system={system} />}</Row>
       <Row label="Removal rate">
         <MeasureValue value={r.materialRemovalRateMm3PerMin} measure={{ quantity: "volumeRate" }} system={system} />
       </Row>

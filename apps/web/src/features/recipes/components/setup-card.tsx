@@ -125,8 +125,14 @@ export function SetupCard({
               <Item label="Chip load">
                 <MeasureValue value={r.chipLoadMm} measure={measures.chipLoad} system={system} />
               </Item>
-              <Item label="Axial depth">
+              <Item label={rec && rec.axialDepthMm < p.axialDepthMm * (1 - 1e-6) ? "Axial depth per pass" : "Axial depth"}>
                 <MeasureValue value={rec?.axialDepthMm ?? p.axialDepthMm} measure={measures.length} system={system} />
+                {rec && rec.axialDepthMm < p.axialDepthMm * (1 - 1e-6) && (
+                  <span className="ml-1 text-xs font-normal">
+                    ({Math.ceil(p.axialDepthMm / rec.axialDepthMm - 1e-9)} passes for{" "}
+                    <MeasureValue value={p.axialDepthMm} measure={measures.length} system={system} />)
+                  </span>
+                )}
               </Item>
               <Item label="Radial depth">
                 {fullWidth ? "full width" : <MeasureValue value={rec?.radialDepthMm ?? p.radialDepthMm} measure={measures.length} system={system} />}
