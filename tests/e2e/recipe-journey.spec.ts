@@ -9,6 +9,9 @@ const programmer = { email: "teodor@quillfeather.example", password: "demo-progr
 const toolingManager = { email: "imke@quillfeather.example", password: "demo-tooling-2026" };
 const operator = { email: "sunniva@quillfeather.example", password: "demo-operator-2026" };
 
+/** A valid 1 × 1 PNG (a single pixel). */
+const ONE_PIXEL_PNG = "iVBORw0KGgoAAAANSUhEUgAAAAEAAAABCAYAAAAfFcSJAAAADUlEQVR42mNk+M9QDwADhgGAWjR9awAAAABJRU5ErkJggg==";
+
 async function signedIn(browser: Browser, who: { email: string; password: string }): Promise<Page> {
   const context = await browser.newContext();
   const page = await context.newPage();
@@ -189,9 +192,20 @@ test("a recipe goes from the planner through a test-cut ladder, proof and approv
   expect(new URL(phone.url()).pathname).toBe(new URL(qrUrl).pathname);
   await expect(phone.getByLabel("Spindle speed (rpm)")).not.toHaveValue("");
   await phone.getByRole("group", { name: "How did the cut go?" }).locator("label").filter({ hasText: "Ran clean" }).tap();
-  await phone.getByRole("button", { name: "Log the cut" }).tap();
-  await expect(phone.getByText("Cut logged. Thank you.")).toBeVisible();
+  // A photo of the cut (a 1 × 1 PNG stands in for the camera).
+  await phone.getByLabel("Choose photos").setInputFiles({ name: "cut.png", mimeType: "image/png", buffer: Buffer.from(ONE_PIXEL_PNG, "base64") });
+  await expect(phone.getByRole("list", { name: "Photos to send" }).getByRole("img")).toHaveCount(1);
   const overflow = await phone.evaluate(() => document.documentElement.scrollWidth - document.documentElement.clientWidth);
   expect(overflow).toBeLessThanOrEqual(0);
+  await phone.getByRole("button", { name: "Log the cut" }).tap();
+  await expect(phone.getByText("Cut logged. Thank you.")).toBeVisible();
+  await expect(phone.getByRole("status")).toContainText("1 photo");
+
+  // The recipe's cut log shows the operator's cut with its photo, served back by the API.
+  await phone.getByRole("link", { name: "Open the recipe" }).tap();
+  const log = phone.getByRole("list", { name: "Cut log" });
+  const photo = log.getByRole("img", { name: /Photo 1 of the cut logged by Sunniva Brack/ });
+  await expect(photo).toBeVisible();
+  await expect.poll(() => photo.evaluate((img: HTMLImageElement) => img.complete && img.naturalWidth)).toBe(1);
   await phoneContext.close();
 });
