@@ -729,7 +729,10 @@ export function recommend(input: RecommendInput): Recommendation {
 
   let chosen: Flags;
   let dial: DialSpeed | null = null;
-  const startFlags = dialCandidates ? null : flagsAt(n0);
+  // The cheap checks first; the chatter boundary at the target only when they pass.
+  const cheapOk = (f: Flags): boolean => f.resonance && f.band && f.feed && f.power && f.vc;
+  const startCheap = dialCandidates ? null : flagsAt(n0, null);
+  const startFlags = startCheap && cheapOk(startCheap) ? flagsAt(n0) : null;
   if (startFlags && allOk(startFlags)) {
     chosen = startFlags;
   } else if (dialCandidates) {
@@ -783,14 +786,17 @@ export function recommend(input: RecommendInput): Recommendation {
       };
       if (rpmHi > rpmLo) for (let j = 0; j < count; j++) candidates.push(flagsAt(rpmLo + ((rpmHi - rpmLo) * j) / (count - 1), envAt(rpmLo + ((rpmHi - rpmLo) * j) / (count - 1))));
       for (const n of inRange) candidates.push(flagsAt(n, envAt(n)));
-      candidates.push(startFlags!);
+      candidates.push(startFlags ?? flagsAt(n0, envAt(n0)));
       const found = pick(candidates);
       // Confirm with the exact boundary at the chosen speed.
       chosen = found === startFlags ? found : flagsAt(found.rpm);
     }
   }
   if (Math.abs(chosen.rpm - n0) > 1e-9 * n0 || dialCandidates) {
-    const before = startFlags ?? flagsAt(n0);
+    // Why the speed moved: the cheap flags at the target explain most moves; the boundary there is
+    // only computed when they do not.
+    const cheapBefore = startFlags ?? startCheap;
+    const before = cheapBefore && (startFlags || !cheapOk(cheapBefore)) ? cheapBefore : flagsAt(n0);
     if (dialCandidates) {
       dial = dialCandidates.find((dl) => dl.rpm === chosen.rpm) ?? null;
     }
@@ -851,14 +857,17 @@ export function recommend(input: RecommendInput): Recommendation {
     ev = evaluate(ctx, rpm, fz, ap);
   }
   reduceFor(rpm, "power", `spindle power (${fmt(ctx.powerAt(rpm))} W at ${fmt(rpm)} rpm)`, (e) => e.power, ctx.powerAt(rpm), false);
-  let limit: Limit | null = stab ? limitAt(stab, ctx, rpm, ev.kt, true) : null;
+  // The boundary's crossing does not depend on Kt (a_lim ∝ 1/Kt): find and refine it once for Kt = 1.
+  const unitLimit: Limit | null = stab ? limitAt(stab, ctx, rpm, 1, true) : null;
+  const limitFor = (kt: number): Limit | null => (unitLimit ? { depth: unitLimit.depth / kt, fc: unitLimit.fc, axis: unitLimit.axis } : null);
+  let limit = limitFor(ev.kt);
   if (stab && limit && ap > sf * limit.depth) {
     const before = ap;
-    // a_lim depends on Kt (chip) and, for ball and bull cutters, on the depth through the contact: iterate to settle.
-    for (let i = 0; i < 4 && limit && ap > sf * limit.depth * (1 + 1e-9); i++) {
+    // Kt depends on the chip and, for ball and bull cutters, on the depth through the contact: iterate to settle.
+    for (let i = 0; i < 6 && limit && ap > sf * limit.depth * (1 + 1e-9); i++) {
       ap = sf * limit.depth;
       ev = evaluate(ctx, rpm, fz, ap);
-      limit = limitAt(stab, ctx, rpm, ev.kt, true);
+      limit = limitFor(ev.kt);
     }
     binding.add("stability");
     adjustments.push(

@@ -54,10 +54,38 @@ export function millingForceCore(
     }
     return Math.sqrt(fx * fx + fy * fy);
   };
+  // Sampled over one pitch; sines and cosines by rotation (one pair per call, not per tooth).
+  const step = pitch / SAMPLES;
+  const cStep = Math.cos(step);
+  const sStep = Math.sin(step);
+  const cPitch = Math.cos(pitch);
+  const sPitch = Math.sin(pitch);
+  let c0 = 1;
+  let s0 = 0;
   let peak = 0;
   for (let i = 0; i < SAMPLES; i++) {
-    const f = forceAt((i * pitch) / SAMPLES);
+    let fx = 0;
+    let fy = 0;
+    let c = c0;
+    let sn = s0;
+    let phi = i * step;
+    for (let j = 0; j < flutes; j++) {
+      if (phi >= st && phi <= ex) {
+        const ft = k * sn;
+        const fr = kr * ft;
+        fx -= ft * c + fr * sn;
+        fy += ft * sn - fr * c;
+      }
+      const cn = c * cPitch - sn * sPitch;
+      sn = sn * cPitch + c * sPitch;
+      c = cn;
+      phi += pitch;
+    }
+    const f = Math.sqrt(fx * fx + fy * fy);
     if (f > peak) peak = f;
+    const cn0 = c0 * cStep - s0 * sStep;
+    s0 = s0 * cStep + c0 * sStep;
+    c0 = cn0;
   }
   // Critical angles: a tooth at the entry, at the exit, and where its own chip is thickest.
   const thickest = Math.min(Math.max(Math.PI / 2, st), ex);
