@@ -1,5 +1,9 @@
-import { expect, test } from "@playwright/test";
+import { expect as baseExpect, test } from "@playwright/test";
 import { signIn, unique } from "./support";
+
+// Shared two-core runners answer slowly under load; these journeys wait longer for each step.
+const expect = baseExpect.configure({ timeout: 30_000 });
+test.slow();
 
 // The demo tooling manager (invented demo scenario; logins in apps/api/src/seed/README.md).
 const toolingManager = { email: "imke@quillfeather.example", password: "demo-tooling-2026" };

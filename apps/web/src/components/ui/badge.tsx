@@ -11,7 +11,8 @@ export type BadgeTone = "neutral" | "brand" | "ok" | "near" | "limit" | "measure
 const tones: Record<BadgeTone, string> = {
   neutral: "border-rule bg-paper text-muted",
   brand: "border-brand/30 bg-brand-tint text-brand",
-  ok: "border-ok/30 bg-ok/10 text-ok",
+  // A darker green than the state colour itself: 4.4:1 on its own tint is below AA for small text.
+  ok: "border-ok/30 bg-ok/10 text-[#24654a]",
   near: "border-near/40 bg-near/10 text-[#8a5a12]",
   limit: "border-limit/30 bg-limit/10 text-limit",
   measured: "border-measured/30 bg-measured/10 text-measured",

@@ -67,7 +67,10 @@ export function Sheet({
               <span className="sr-only">Close</span>
             </button>
           </div>
-          <div className="min-h-0 flex-1 overflow-y-auto px-5 py-5">{children}</div>
+          {/* Focusable so the body can be scrolled from the keyboard even when it holds no control. */}
+          <div role="region" aria-labelledby={titleId} tabIndex={0} className="min-h-0 flex-1 overflow-y-auto px-5 py-5 focus-visible:outline-offset-[-2px]">
+            {children}
+          </div>
           {footer && <div className="flex items-center justify-end gap-2 border-t border-rule bg-surface px-5 py-3">{footer}</div>}
         </div>
       )}
