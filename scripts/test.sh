@@ -158,6 +158,9 @@ fi
 # A step that failed without a test report (typecheck, build, a runner that crashed) counts as one failure.
 FAILED=$((FAILED + FAILED_WITHOUT_REPORT))
 ((FAILED > 0)) && OVERALL=1
+# A runner can fail outside any test (an unhandled error in its setup) while its report counts no
+# failed test: the closing line must still never say "0 failed" for a failing run.
+((OVERALL == 1 && FAILED == 0)) && FAILED=1
 
 echo
 echo "tests: $PASSED passed, $FAILED failed"
