@@ -320,7 +320,7 @@ export function CuttersPage() {
         shopId={shop.shopId}
         open={importing}
         onClose={() => setImporting(false)}
-        onImported={(count) => setNotice({ tone: "ok", text: `Imported ${count} cutters.` })}
+        onImported={(count) => setNotice({ tone: "ok", text: `Imported ${count} ${count === 1 ? "cutter" : "cutters"} from the CSV file.` })}
       />
       <DeleteCutterDialog
         cutter={deleting}

@@ -211,7 +211,13 @@ export function ImportCuttersSheet({
             <Button
               disabled={!ready || !picked}
               pending={run.isPending}
-              onClick={() => picked && run.mutate({ file: picked.blob, fileName: picked.name })}
+              onClick={() =>
+                picked &&
+                run.mutate(
+                  { file: picked.blob, fileName: picked.name },
+                  { onSuccess: (outcome) => outcome.refused === null && onImported(outcome.report.imported) },
+                )
+              }
             >
               {report && ready ? `Import ${formatNumber(report.counts.valid)} ${report.counts.valid === 1 ? "cutter" : "cutters"}` : "Import"}
             </Button>
