@@ -44,6 +44,11 @@ export const routes: RouteObject[] = [
           { path: "machines", lazy: page(() => import("./routes/app/machines"), (m) => m.MachinesRoute) },
           { path: "machines/new", lazy: page(() => import("./routes/app/machine-new"), (m) => m.MachineNewRoute) },
           { path: "machines/:machineId", lazy: page(() => import("./routes/app/machine-detail"), (m) => m.MachineDetailRoute) },
+          { path: "machines/:machineId/vibration", lazy: page(() => import("./routes/app/machine-vibration"), (m) => m.MachineVibrationRoute) },
+          {
+            path: "machines/:machineId/recordings/:recordingId",
+            lazy: page(() => import("./routes/app/machine-recording"), (m) => m.MachineRecordingRoute),
+          },
           { path: "team", lazy: page(() => import("./routes/app/team"), (m) => m.TeamRoute) },
           { path: "billing", lazy: page(() => import("./routes/app/billing"), (m) => m.BillingRoute) },
           { path: "*", lazy: page(() => import("./routes/not-found"), (m) => m.NotFoundRoute) },

@@ -17,6 +17,7 @@ import { useUpdateMachine } from "../api/update-machine";
 import { canEditMachines, kindLabels } from "../labels";
 import { bodyOfMachine, MachineForm } from "./machine-form";
 import { MachineKeyFigures } from "./machine-key-figures";
+import { MachineTabs } from "./machine-tabs";
 
 /** One machine: key figures, then every figure in sections (editable for curators). */
 export function MachineDetail({ machineId, related }: { machineId: string; /** Shown under the key figures, e.g. the machine's assemblies. */ related?: (machine: Machine) => ReactNode }) {
@@ -70,6 +71,7 @@ export function MachineDetail({ machineId, related }: { machineId: string; /** S
           ) : undefined
         }
       />
+      <MachineTabs machineId={machine.id} current="figures" />
       <MachineKeyFigures machine={machine} />
       {related?.(machine)}
       <h2 className="mt-2 text-base font-semibold text-ink">Figures</h2>

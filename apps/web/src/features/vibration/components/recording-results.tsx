@@ -42,7 +42,7 @@ function Figure({ label, children }: { label: string; children: React.ReactNode 
   );
 }
 
-function SpectrumLegend({ guides, chatter }: { guides: { spindle: boolean; tooth: boolean; mark?: string }; chatter: boolean }) {
+function SpectrumLegend({ guides, peaks, chatter }: { guides: { spindle: boolean; tooth: boolean; mark?: string }; peaks: boolean; chatter: boolean }) {
   return (
     <ul className="flex flex-wrap gap-x-5 gap-y-1 text-xs text-muted" aria-label="Legend">
       <li className="inline-flex items-center gap-1.5">
@@ -75,12 +75,14 @@ function SpectrumLegend({ guides, chatter }: { guides: { spindle: boolean; tooth
           {guides.mark}
         </li>
       )}
-      <li className="inline-flex items-center gap-1.5">
-        <svg width="12" height="10" aria-hidden>
-          <path d="M1.5 1.5 H10.5 L6 9 Z" fill="#22252A" />
-        </svg>
-        Detected peak
-      </li>
+      {peaks && (
+        <li className="inline-flex items-center gap-1.5">
+          <svg width="12" height="10" aria-hidden>
+            <path d="M1.5 1.5 H10.5 L6 9 Z" fill="#22252A" />
+          </svg>
+          Detected peak
+        </li>
+      )}
       {chatter && (
         <li className="inline-flex items-center gap-1.5">
           <svg width="12" height="12" aria-hidden>
@@ -143,7 +145,11 @@ function CutResultsView({ results, machine }: { results: CutResults; machine: Ma
             toothPassingHarmonicsHz={results.toothPassingHarmonicsHz}
             magnitudeLabel="Amplitude (log)"
           />
-          <SpectrumLegend guides={{ spindle: results.spindleHarmonicsHz.length > 0, tooth: results.toothPassingHarmonicsHz.length > 0 }} chatter={chatter.length > 0} />
+          <SpectrumLegend
+            guides={{ spindle: results.spindleHarmonicsHz.length > 0, tooth: results.toothPassingHarmonicsHz.length > 0 }}
+            peaks={results.peaks.length > 0}
+            chatter={chatter.length > 0}
+          />
         </CardBody>
       </Card>
       <Card>
@@ -288,7 +294,7 @@ function TapResultsView({ results, recording, mayEdit, accept, system }: { resul
         <CardHeader title="Spectrum of the ring-down" />
         <CardBody className="flex flex-col gap-3">
           <SpectrumChart spectrum={results.spectrum} peaks={[]} marks={[{ frequencyHz: r.frequencyHz, label: "Ring-down frequency" }]} magnitudeLabel="Amplitude (log)" />
-          <SpectrumLegend guides={{ spindle: false, tooth: false, mark: "Ring-down frequency" }} chatter={false} />
+          <SpectrumLegend guides={{ spindle: false, tooth: false, mark: "Ring-down frequency" }} peaks={false} chatter={false} />
         </CardBody>
       </Card>
       <Card>
@@ -323,7 +329,7 @@ function FrfResultsView({ results, recording, mayEdit, accept, system }: { resul
         <CardHeader title="Frequency response" description="Magnitude of the receptance |G|, with the fitted mode marked." />
         <CardBody className="flex flex-col gap-3">
           <SpectrumChart spectrum={results.spectrum} peaks={[]} marks={[{ frequencyHz: f.frequencyHz, label: "Fitted mode" }]} magnitudeLabel="|G| [mm/N] (log)" />
-          <SpectrumLegend guides={{ spindle: false, tooth: false, mark: "Fitted mode" }} chatter={false} />
+          <SpectrumLegend guides={{ spindle: false, tooth: false, mark: "Fitted mode" }} peaks={false} chatter={false} />
         </CardBody>
       </Card>
       <Card>
@@ -355,7 +361,7 @@ function SpindleFreeResultsView({ results, recording, mayEdit, dial }: { results
         <CardHeader title="Spectrum" />
         <CardBody className="flex flex-col gap-3">
           <SpectrumChart spectrum={results.spectrum} peaks={results.peaks} marks={[{ frequencyHz: results.rotationFrequencyHz, label: "Rotation frequency" }]} magnitudeLabel="Amplitude (log)" />
-          <SpectrumLegend guides={{ spindle: false, tooth: false, mark: "Rotation frequency" }} chatter={false} />
+          <SpectrumLegend guides={{ spindle: false, tooth: false, mark: "Rotation frequency" }} peaks={results.peaks.length > 0} chatter={false} />
         </CardBody>
       </Card>
       <Card>

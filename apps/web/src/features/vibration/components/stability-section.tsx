@@ -111,7 +111,7 @@ export function StabilitySection({ shopId, machine, system }: { shopId: string; 
           <p className="text-sm text-muted">Add a cutter assembly to this machine (on its Figures and assemblies tab) to draw its stability lobes.</p>
         ) : (
           <>
-            <div className="grid gap-3 sm:grid-cols-2 lg:grid-cols-5">
+            <div className="grid gap-3 sm:grid-cols-2 lg:grid-cols-[2fr_2fr_1.4fr_1fr_1fr]">
               <Field id={ids.assembly} label="Cutter assembly">
                 <Select
                   id={ids.assembly}

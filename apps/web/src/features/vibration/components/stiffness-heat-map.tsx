@@ -1,13 +1,13 @@
 import type { StiffnessMap, UnitSystem } from "@ringdown/contracts";
 import { useId, useMemo, useState } from "react";
-import { formatMeasure, formatMeasureNumber, measures, unitOf } from "@/components/ui/units";
+import { formatMeasure, formatMeasureNumber, fromDisplay, measures, toDisplay, unitOf } from "@/components/ui/units";
 import { cn } from "@/lib/cn";
-import { heatColour, heatScale } from "../lib/heat-scale";
+import { heatColour, heatScale, niceTicks } from "../lib/heat-scale";
 
 type Direction = "x" | "y" | "z";
 
 const WIDTH = 560;
-const PAD = { left: 56, right: 12, top: 12, bottom: 40 };
+const PAD = { left: 56, right: 24, top: 12, bottom: 40 };
 
 /** Cell edges around grid positions: halfway between neighbours, the envelope's ends outside. */
 function edges(positions: number[], extent: number): number[] {
@@ -51,7 +51,9 @@ export function StiffnessHeatMap({ map, system }: { map: StiffnessMap; system: U
   const scale = dir && dir.minNPerMm !== null && dir.maxNPerMm !== null ? heatScale(dir.minNPerMm, dir.maxNPerMm, 5) : null;
   const readings = map.readings.filter((r) => r.direction === chosen);
   const stiffness = measures.stiffness;
-  const lengthTicks = (extent: number) => [0, 0.25, 0.5, 0.75, 1].map((f) => f * extent);
+  // Nice round positions in the person's unit, converted back to mm for placing.
+  const lengthTicks = (extentMm: number) =>
+    niceTicks(0, toDisplay(extentMm, measures.length, system), 6).map((v) => fromDisplay(v, measures.length, system));
   const fmtLen = (mm: number) => formatMeasureNumber(mm, measures.length, system);
   const lengthUnit = unitOf(measures.length, system);
 

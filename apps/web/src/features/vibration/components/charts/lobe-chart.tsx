@@ -92,10 +92,12 @@ export default function LobeChart({ curve, safetyFactor, current, evidence, syst
 
   const options = useMemo<Omit<uPlot.Options, "width">>(() => {
     // Room above the highest boundary point, the recipe and the evidence.
-    // The lobes' peaks can reach far above their floor: the axis stops at 4 × the median boundary
-    // (points above are drawn at the top edge) unless the recipe or a logged cut needs more.
-    const finite = curve.limitingDepthMm.filter((d): d is number => d !== null).sort((a, b) => a - b);
-    const boundaryTop = finite.length > 0 ? Math.min(finite[finite.length - 1]!, 4 * finite[Math.floor(finite.length / 2)]!) : 0;
+    // The lobes' peaks reach far above their floor, where the choice of speed matters: the axis
+    // stops at 3 × the lowest boundary (points above are drawn at the top edge) unless the recipe
+    // or a logged cut needs more.
+    const finite = curve.limitingDepthMm.filter((d): d is number => d !== null);
+    const lowest = finite.length > 0 ? Math.min(...finite) : 0;
+    const boundaryTop = finite.length > 0 ? Math.min(Math.max(...finite), 3 * lowest) : 0;
     const top = show(Math.max(boundaryTop, current?.depthMm ?? 0, ...evidence.map((e) => e.depthMm), 0.001) * 1.15);
     const drawMarks = (u: uPlot) => {
       const ctx = u.ctx;
@@ -120,7 +122,10 @@ export default function LobeChart({ curve, safetyFactor, current, evidence, syst
       legend: { show: false },
       cursor: { drag: { x: true, y: false }, points: { show: false } },
       scales: { x: { time: false }, y: { range: () => [0, top] } },
-      axes: [axis("Spindle speed [rpm]"), axis(`Axial depth [${unit}]`, { size: 56 })],
+      axes: [
+        axis("Spindle speed [rpm]", { values: (_u: uPlot, ticks: number[]) => ticks.map((t) => formatNumber(t, { fractionDigits: 0, system })) }),
+        axis(`Axial depth [${unit}]`, { size: 56, values: (_u: uPlot, ticks: number[]) => ticks.map((t) => formatNumber(t, { significantDigits: 3, system })) }),
+      ],
       series: [
         {},
         { label: "Chatter boundary", stroke: chart.brand, width: 1.5, points: { show: false }, spanGaps: false },

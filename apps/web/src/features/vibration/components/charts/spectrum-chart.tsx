@@ -94,9 +94,33 @@ export default function SpectrumChart({ spectrum, peaks, spindleHarmonicsHz = []
       legend: { show: false },
       cursor: { drag: { x: true, y: false }, points: { size: 6, fill: chart.measured } },
       scales: { x: { time: false }, y: { distr: 3 } },
-      axes: [axis("Frequency [Hz]"), axis(magnitudeLabel, { size: 64 })],
+      axes: [
+        axis("Frequency [Hz]", { values: (_u: uPlot, ticks: number[]) => ticks.map((t) => formatNumber(t, { significantDigits: 6 })) }),
+        axis(magnitudeLabel, {
+          size: 64,
+          // Decades only (or 1-2-5 steps over a narrow range): a light grid on a log scale.
+          filter: (u: uPlot, splits: number[]) => {
+            const { min, max } = u.scales.y!;
+            const wide = Math.log10((max ?? 10) / (min ?? 1)) >= 2;
+            return splits.map((v) => {
+              const mantissa = Math.round((v / 10 ** Math.floor(Math.log10(v) + 1e-9)) * 1000) / 1000;
+              return mantissa === 1 || (!wide && (mantissa === 2 || mantissa === 5)) ? v : null;
+            });
+          },
+          values: (_u: uPlot, ticks: Array<number | null>) => ticks.map((t) => (t === null ? "" : formatNumber(t, { significantDigits: 2 }))),
+        }),
+      ],
       series: [{}, { label: "Amplitude", stroke: chart.measured, width: 1.25, points: { show: false } }],
       hooks: {
+        // Open on the part of the spectrum with something in it; double-click shows it all.
+        ready: [
+          (u: uPlot) => {
+            const last = (u.data[0] as unknown as Float64Array)[u.data[0].length - 1] ?? 0;
+            const interesting = Math.max(0, ...peaks.map((p) => p.frequencyHz), ...marks.map((m) => m.frequencyHz));
+            const max = interesting > 0 ? Math.max(1000, Math.ceil((interesting * 2.5) / 500) * 500) : last;
+            if (max < last) u.setScale("x", { min: 0, max });
+          },
+        ],
         drawAxes: [drawGuides],
         draw: [drawPeaks],
         setCursor: [
@@ -105,7 +129,7 @@ export default function SpectrumChart({ spectrum, peaks, spindleHarmonicsHz = []
             if (!el) return;
             const i = u.cursor.idx;
             if (i === null || i === undefined) {
-              el.textContent = "Point at the spectrum to read it; drag to zoom, double-click to reset.";
+              el.textContent = "Point at the spectrum to read it; drag to zoom, double-click to show it all.";
               return;
             }
             const f = (u.data[0] as unknown as Float64Array)[i]!;
@@ -122,7 +146,7 @@ export default function SpectrumChart({ spectrum, peaks, spindleHarmonicsHz = []
     <div className="flex flex-col gap-1">
       <div ref={container} className="w-full" />
       <p ref={readout} className="min-h-5 text-xs text-muted tabular">
-        Point at the spectrum to read it; drag to zoom, double-click to reset.
+        Point at the spectrum to read it; drag to zoom, double-click to show it all.
       </p>
     </div>
   );
