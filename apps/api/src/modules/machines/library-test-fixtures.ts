@@ -8,6 +8,7 @@ import type { Express } from "express";
 import type { Role } from "@ringdown/contracts";
 import { getSequelize } from "../../db/sequelize.js";
 import { createPerson, joinShop, type SignedUp } from "../../test/harness.js";
+import { saveSubscription } from "../billing/billing.repository.js";
 
 export type Team = Record<Role, SignedUp> & { shopId: string };
 
@@ -19,6 +20,8 @@ export async function teamShop(app: Express, label: string): Promise<Team> {
     team[role] = await createPerson(app, `${label}-${role}`);
     await joinShop(team[role].userId, owner.shopId, role);
   }
+  // On the team plan, so the free plan's one-machine limit does not get in the way of the tests.
+  await saveSubscription(owner.shopId, { status: "active", seats: 10 });
   return team;
 }
 

@@ -1,3 +1,4 @@
+import { assertCanAddMachine } from "../billing/billing.service.js";
 import {
   machineBodySchema,
   type Machine,
@@ -36,7 +37,11 @@ export function defaultsForKind(kind: MachineKind): MachineBody {
 }
 
 export function createMachine(shopId: string, body: MachineBody): Promise<Machine> {
-  return inTransaction((tx) => insertMachine(shopId, body, tx));
+  return inTransaction(async (tx) => {
+    // The free plan includes one machine; the billing service says so in words when it is used up.
+    await assertCanAddMachine(shopId, tx);
+    return insertMachine(shopId, body, tx);
+  });
 }
 
 function bodyOf(m: Machine): MachineBody {

@@ -9,7 +9,7 @@ import {
   machineSchema,
   type Machine,
 } from "@ringdown/contracts";
-import { disconnectTestDatabase, makeTestApp } from "../../test/harness.js";
+import { createPerson, disconnectTestDatabase, makeTestApp } from "../../test/harness.js";
 import { cutterBody, globalMaterialId, insertRecipeRow, machineBody, needsRecheck, teamShop, type Team } from "./library-test-fixtures.js";
 
 const app = makeTestApp();
@@ -243,5 +243,19 @@ describe("DELETE /machines/:id and restore", () => {
     const restored = machineSchema.parse((await team.tooling_manager.agent.post(`${base()}/${m.id}/restore`)).body);
     expect(restored.deletedAt).toBeNull();
     expect(restored.modes).toEqual(m.modes);
+  });
+});
+
+describe("POST /machines on the free plan", () => {
+  it("allows one machine and refuses the second with a message that says how to add more", async () => {
+    // A new shop that never subscribed is on the free plan (1 machine).
+    const owner = await createPerson(app, "free-plan-machines", "Free plan machine shop");
+    const first = await owner.agent.post(`/api/shops/${owner.shopId}/machines`).send(machineBody());
+    expect(first.status).toBe(201);
+    const second = await owner.agent.post(`/api/shops/${owner.shopId}/machines`).send(machineBody({ name: "Second machine" }));
+    expect(second.status).toBe(409);
+    expect(second.body.error.message).toMatch(/free plan includes 1 machine/i);
+    const list = await owner.agent.get(`/api/shops/${owner.shopId}/machines`);
+    expect(list.body.total).toBe(1);
   });
 });
