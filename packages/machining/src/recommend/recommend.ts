@@ -5,12 +5,12 @@ import {
   boundaryAtRpm,
   cachedBranches,
   cachedFrfGrid,
-  modesKey,
   envelopeOverSpeeds,
   FAST_GRID,
   frequencyBandHz,
   refineHit,
   type Branches,
+  type BoundaryHit,
 } from "../dynamics/internal/stability-model.js";
 import type { Mode } from "../dynamics/mode.js";
 import { immersionAnglesRad } from "../forces/immersion-angles-rad.js";
@@ -299,8 +299,7 @@ function buildStability(ctx: Context, rpmLo: number, rpmHi: number): StabilityCt
     millingDirection: ctx.input.millingDirection ?? "climb",
   });
   const band = frequencyBandHz(modes, ctx.z, rpmLo, rpmHi);
-  // Keyed by the modes' values (not the list's identity: a list edited in place must not hit a stale grid).
-  const grid = cachedFrfGrid(modes, band.loHz, band.hiHz, FAST_GRID, modesKey(modes));
+  const grid = cachedFrfGrid(modes, band.loHz, band.hiHz, FAST_GRID);
   const feedAxis = ctx.input.feedAxis ?? "any";
   const axes: ("x" | "y")[] = feedAxis === "any" ? ["x", "y"] : [feedAxis];
   const cut = { radialImmersion: ctx.immersion, radialForceRatio: ctx.kr, millingDirection: ctx.input.millingDirection ?? "climb" };
@@ -313,11 +312,18 @@ interface Limit {
   depth: number;
   fc: number;
   axis: "x" | "y";
+  /** Grid crossing per orientation (for refining later without a new search) */
+  hits?: (BoundaryHit | null)[];
 }
 
 function limitAt(st: StabilityCtx, ctx: Context, rpm: number, kt: number, refine: boolean, capMm = Number.MAX_VALUE): Limit | null {
   // Branch depths are for Kt = 1: the cap scales the same way.
   const hits = st.branches.map((br) => boundaryAtRpm(br, ctx.z, rpm, capMm * kt));
+  return limitFromHits(st, ctx, rpm, kt, refine, hits);
+}
+
+/** The lowest of the orientations' crossings, refined when asked (the lowest, and any within 5 %). */
+function limitFromHits(st: StabilityCtx, ctx: Context, rpm: number, kt: number, refine: boolean, hits: (BoundaryHit | null)[]): Limit | null {
   let lowest = Number.MAX_VALUE;
   for (const h of hits) if (h && h.limitingDepthMm < lowest) lowest = h.limitingDepthMm;
   let best: Limit | null = null;
@@ -326,7 +332,7 @@ function limitAt(st: StabilityCtx, ctx: Context, rpm: number, kt: number, refine
     // Refine the lowest orientation, and any other within 5 % of it on the grid.
     const hit = refine && h.limitingDepthMm <= 1.05 * lowest ? refineHit(h, st.branches[i]!, st.modes, st.alpha, ctx.z, 1, rpm, st.axes[i] === "y") : h;
     const depth = hit.limitingDepthMm / kt;
-    if (!best || depth < best.depth) best = { depth, fc: hit.chatterFrequencyHz, axis: st.axes[i]! };
+    if (!best || depth < best.depth) best = { depth, fc: hit.chatterFrequencyHz, axis: st.axes[i]!, hits };
   });
   return best;
 }
@@ -662,6 +668,8 @@ export function recommend(input: RecommendInput): Recommendation {
     vc: boolean;
     stable: boolean;
     aLim: number | null;
+    /** The capped boundary search at this speed, when one was made */
+    limit?: Limit | null;
   }
   const vcAt = (n: number): number => (Math.PI * deffNominal * n) / 1000;
   const mrrAt = (n: number): number => (rule.axial ? ((Math.PI * ctx.d * ctx.d) / 4) * fz * z * n : ap * ctx.ae * fz * z * n);
@@ -681,8 +689,10 @@ export function recommend(input: RecommendInput): Recommendation {
       }
     }
     const vc = vcAt(n);
-    const lim = aLim !== undefined ? aLim : stab ? (limitAt(stab, ctx, n, kt1, false, capMm)?.depth ?? null) : null;
+    const found = aLim === undefined && stab ? limitAt(stab, ctx, n, kt1, false, capMm) : undefined;
+    const lim = aLim !== undefined ? aLim : (found?.depth ?? null);
     return {
+      limit: found,
       rpm: n,
       resonance,
       band,
@@ -858,7 +868,14 @@ export function recommend(input: RecommendInput): Recommendation {
   }
   reduceFor(rpm, "power", `spindle power (${fmt(ctx.powerAt(rpm))} W at ${fmt(rpm)} rpm)`, (e) => e.power, ctx.powerAt(rpm), false);
   // The boundary's crossing does not depend on Kt (a_lim ∝ 1/Kt): find and refine it once for Kt = 1.
-  const unitLimit: Limit | null = stab ? limitAt(stab, ctx, rpm, 1, true) : null;
+  // A capped search at this speed already found the lowest crossing when it found any (the lowest
+  // crossing is below every other): refine those hits instead of searching again.
+  const known = chosen.rpm === rpm ? chosen.limit : undefined;
+  const unitLimit: Limit | null = !stab
+    ? null
+    : known && known.hits
+      ? limitFromHits(stab, ctx, rpm, 1, true, known.hits)
+      : limitAt(stab, ctx, rpm, 1, true);
   const limitFor = (kt: number): Limit | null => (unitLimit ? { depth: unitLimit.depth / kt, fc: unitLimit.fc, axis: unitLimit.axis } : null);
   let limit = limitFor(ev.kt);
   if (stab && limit && ap > sf * limit.depth) {

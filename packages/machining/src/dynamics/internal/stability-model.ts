@@ -102,46 +102,64 @@ export function frfOnGrid(modes: readonly Mode[], frequencyHz: Float64Array): Fr
   return { size, frequencyHz, xxRe, xxIm, yyRe, yyIm };
 }
 
-/** A small least-recently-used memo (pure functions of numbers only; bounded memory). */
-class Lru<V> {
-  private readonly map = new Map<string, V>();
-  constructor(private readonly size: number) {}
-  get(key: string): V | undefined {
-    const v = this.map.get(key);
-    if (v !== undefined) {
-      this.map.delete(key);
-      this.map.set(key, v);
-    }
-    return v;
-  }
-  set(key: string, v: V): void {
-    this.map.set(key, v);
-    if (this.map.size > this.size) this.map.delete(this.map.keys().next().value as string);
-  }
+/**
+ * The numbers a grid depends on, in a fixed order: band, density, and each mode's direction (x = 0,
+ * y = 1), frequency, damping and stiffness. Used as an exact cache key (hashed, then compared).
+ */
+function gridSignature(modes: readonly Mode[], loHz: number, hiHz: number, density: GridDensity): Float64Array {
+  const sig = new Float64Array(4 + 4 * modes.length);
+  sig[0] = loHz;
+  sig[1] = hiHz;
+  sig[2] = density.basePoints;
+  sig[3] = density.perModePoints;
+  modes.forEach((m, i) => {
+    sig[4 + 4 * i] = m.direction === "x" ? 0 : 1;
+    sig[5 + 4 * i] = m.frequencyHz;
+    sig[6 + 4 * i] = m.dampingRatio;
+    sig[7 + 4 * i] = m.stiffnessNPerMm;
+  });
+  return sig;
 }
 
-const gridCache = new Lru<FrfGrid & { key: string }>(16);
-
-/** Cache key of a set of modes (callers that check many recipes of one machine pass it in). */
-export function modesKey(modes: readonly Mode[]): string {
-  let key = "";
-  for (const m of modes) key += `|${m.direction}${m.frequencyHz},${m.dampingRatio},${m.stiffnessNPerMm}`;
-  return key;
+/** FNV-1a over the bit patterns of the numbers (a hash only: entries are compared value by value). */
+function hashSignature(sig: Float64Array): number {
+  const words = new Uint32Array(sig.buffer, sig.byteOffset, sig.length * 2);
+  let h = 0x811c9dc5;
+  for (let i = 0; i < words.length; i++) {
+    h ^= words[i]!;
+    h = Math.imul(h, 0x01000193) >>> 0;
+  }
+  return h;
 }
 
-/** FRF grid for a set of modes, memoised (a shop re-checks many recipes on the same machine). */
-export function cachedFrfGrid(
-  modes: readonly Mode[],
-  loHz: number,
-  hiHz: number,
-  density: GridDensity,
-  precomputedModesKey?: string,
-): FrfGrid & { key: string } {
-  const key = `${loHz}|${hiHz}|${density.basePoints}|${density.perModePoints}${precomputedModesKey ?? modesKey(modes)}`;
-  const hit = gridCache.get(key);
-  if (hit) return hit;
-  const grid = { ...frfOnGrid(modes, frequencyGrid(modes, loHz, hiHz, density)), key };
-  gridCache.set(key, grid);
+function sameSignature(a: Float64Array, b: Float64Array): boolean {
+  if (a.length !== b.length) return false;
+  for (let i = 0; i < a.length; i++) if (!Object.is(a[i], b[i])) return false;
+  return true;
+}
+
+type CachedGrid = FrfGrid & { signature: Float64Array };
+const gridCache = new Map<number, CachedGrid[]>();
+let gridCacheCount = 0;
+
+/**
+ * FRF grid for a set of modes, memoised (a shop re-checks many recipes on the same machine). The
+ * cache key is the exact set of numbers the grid depends on, so a mode list edited in place never
+ * hits a stale grid. At most 32 grids are kept.
+ */
+export function cachedFrfGrid(modes: readonly Mode[], loHz: number, hiHz: number, density: GridDensity): FrfGrid {
+  const sig = gridSignature(modes, loHz, hiHz, density);
+  const h = hashSignature(sig);
+  const bucket = gridCache.get(h);
+  if (bucket) for (const g of bucket) if (sameSignature(g.signature, sig)) return g;
+  if (gridCacheCount >= 32) {
+    gridCache.clear();
+    gridCacheCount = 0;
+  }
+  const grid: CachedGrid = { ...frfOnGrid(modes, frequencyGrid(modes, loHz, hiHz, density)), signature: sig };
+  if (bucket) bucket.push(grid);
+  else gridCache.set(h, [grid]);
+  gridCacheCount++;
   return grid;
 }
 
