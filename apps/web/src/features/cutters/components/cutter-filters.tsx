@@ -41,19 +41,19 @@ export function CutterFilters({ value, onChange }: { value: CutterFilterValues; 
           />
         </div>
       </div>
-      <div className="flex w-40 flex-col gap-1.5">
+      <div className="flex min-w-36 flex-1 flex-col gap-1.5 sm:max-w-44">
         <label htmlFor={`${id}-status`} className="text-xs font-medium text-muted">
           Status
         </label>
         <Select id={`${id}-status`} value={value.status} onChange={(e) => onChange({ status: e.target.value })} options={statusOptions} placeholder="Any status" />
       </div>
-      <div className="flex w-48 flex-col gap-1.5">
+      <div className="flex min-w-36 flex-1 flex-col gap-1.5 sm:max-w-52">
         <label htmlFor={`${id}-shape`} className="text-xs font-medium text-muted">
           Shape
         </label>
         <Select id={`${id}-shape`} value={value.shape} onChange={(e) => onChange({ shape: e.target.value })} options={shapeOptions} placeholder="Any shape" />
       </div>
-      <div className="flex w-40 flex-col gap-1.5">
+      <div className="flex min-w-36 flex-1 flex-col gap-1.5 sm:max-w-44">
         <label htmlFor={`${id}-tm`} className="text-xs font-medium text-muted">
           Tool material
         </label>

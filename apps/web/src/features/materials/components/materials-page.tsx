@@ -211,13 +211,13 @@ export function MaterialsPage() {
             <Input id={`${id}-q`} type="search" value={text} onChange={(e) => setText(e.target.value)} placeholder="Name or hardness…" className="pl-9" />
           </div>
         </div>
-        <div className="flex w-48 flex-col gap-1.5">
+        <div className="flex min-w-36 flex-1 flex-col gap-1.5 sm:max-w-52">
           <label htmlFor={`${id}-group`} className="text-xs font-medium text-muted">
             Group
           </label>
           <Select id={`${id}-group`} value={group.success ? group.data : ""} onChange={(e) => setParam("group", e.target.value)} options={groupOptions} placeholder="Any group" />
         </div>
-        <div className="flex w-48 flex-col gap-1.5">
+        <div className="flex min-w-36 flex-1 flex-col gap-1.5 sm:max-w-52">
           <label htmlFor={`${id}-scope`} className="text-xs font-medium text-muted">
             Origin
           </label>
