@@ -1,11 +1,14 @@
-import { operations, type Operation } from "@ringdown/contracts";
+import { operations, type Machine, type Operation, type UnitSystem } from "@ringdown/contracts";
+import type { Recommendation } from "@ringdown/machining";
 import { useMemo } from "react";
 import { useSearchParams } from "react-router-dom";
 import { Card } from "@/components/ui/card";
 import { EmptyState } from "@/components/ui/empty-state";
+import { useCutLogs } from "@/features/cut-logs/api/get-cut-logs";
 import { MachineMaterialEvidence } from "@/features/cut-logs/components/machine-material-evidence";
 import { Planner } from "@/features/planner/components/planner";
 import { lengthInputText, type PlannerValues } from "@/features/planner/lib/planner-values";
+import { StabilityPanel } from "@/features/vibration/components/stability-panel";
 import { useActiveShop } from "@/lib/active-shop";
 import { useUnitSystem } from "@/lib/auth";
 import { useDocumentTitle } from "@/lib/use-document-title";
@@ -41,6 +44,44 @@ function initialFromSearch(search: URLSearchParams, system: "metric" | "imperial
   return initial;
 }
 
+/** Resonance warnings, the nearest stable speed and the stability lobes of the planned cut, with the shop's logged cuts. */
+function PlannerStability({
+  shopId,
+  machine,
+  materialId,
+  flutes,
+  rec,
+  millingDirection,
+  system,
+  onUseRpm,
+}: {
+  shopId: string;
+  machine: Machine;
+  materialId: string;
+  flutes: number;
+  rec: Recommendation;
+  millingDirection: "climb" | "conventional";
+  system: UnitSystem;
+  onUseRpm: (rpm: number) => void;
+}) {
+  const logs = useCutLogs(shopId, machine.id, materialId);
+  return (
+    <Card>
+      <div className="px-5 py-4">
+        <StabilityPanel
+          machine={machine}
+          flutes={flutes}
+          rec={rec}
+          cutLogs={logs.data?.items ?? []}
+          system={system}
+          millingDirection={millingDirection}
+          onUseRpm={onUseRpm}
+        />
+      </div>
+    </Card>
+  );
+}
+
 export function PlannerRoute() {
   useDocumentTitle("Planner");
   const shop = useActiveShop();
@@ -63,14 +104,28 @@ export function PlannerRoute() {
           role={shop.role}
           system={system}
           initial={initial}
-          evidence={({ machineId, materialId, rec }) => (
-            <MachineMaterialEvidence
-              shopId={shop.shopId}
-              machineId={machineId}
-              materialId={materialId}
-              system={system}
-              predicted={rec ? { rpm: rec.rpm, feedMmPerMin: rec.feedMmPerMin } : undefined}
-            />
+          evidence={({ machineId, materialId, rec, machine, flutes, millingDirection, applyRpm }) => (
+            <>
+              {rec && machine && flutes !== null && (
+                <PlannerStability
+                  shopId={shop.shopId}
+                  machine={machine}
+                  materialId={materialId}
+                  flutes={flutes}
+                  rec={rec}
+                  millingDirection={millingDirection}
+                  system={system}
+                  onUseRpm={applyRpm}
+                />
+              )}
+              <MachineMaterialEvidence
+                shopId={shop.shopId}
+                machineId={machineId}
+                materialId={materialId}
+                system={system}
+                predicted={rec ? { rpm: rec.rpm, feedMmPerMin: rec.feedMmPerMin } : undefined}
+              />
+            </>
           )}
         />
       ) : (

@@ -43,7 +43,17 @@ export interface PlannerProps {
   /** Starting choices (e.g. from a recipe's "open in planner"); the rest is filled from the library. */
   initial?: Partial<PlannerValues>;
   /** What the planner shows beside the prediction: the shop's logged cuts for this machine and material. */
-  evidence?: (input: { machineId: string; materialId: string; rec: Recommendation | null }) => ReactNode;
+  evidence?: (input: {
+    machineId: string;
+    materialId: string;
+    rec: Recommendation | null;
+    /** The chosen machine and the flutes of the chosen cutter, for the resonance and stability read-out */
+    machine: Machine | null;
+    flutes: number | null;
+    millingDirection: PlannerValues["millingDirection"];
+    /** Puts a speed in the spindle-speed override (e.g. an offered stable speed) */
+    applyRpm: (rpm: number) => void;
+  }) => ReactNode;
 }
 
 const CAN_SAVE: ReadonlySet<Role> = new Set<Role>(["owner", "tooling_manager", "programmer"]);
@@ -342,7 +352,18 @@ export function Planner({ shopId, role, system, initial, evidence }: PlannerProp
           requested={parsed.params}
           machineName={machine?.name ?? null}
         />
-        {evidence && values.machineId && values.materialId && evidence({ machineId: values.machineId, materialId: values.materialId, rec: plan?.rec ?? null })}
+        {evidence &&
+          values.machineId &&
+          values.materialId &&
+          evidence({
+            machineId: values.machineId,
+            materialId: values.materialId,
+            rec: plan?.rec ?? null,
+            machine,
+            flutes: cutter.data?.flutes ?? null,
+            millingDirection: deferred.millingDirection,
+            applyRpm: (rpm) => form.setValue("rpmOverride", String(Math.round(rpm)), { shouldDirty: true, shouldValidate: true }),
+          })}
       </div>
 
       {saving && saveBody && (
