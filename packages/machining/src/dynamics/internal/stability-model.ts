@@ -11,13 +11,17 @@
  *   and ε = π − 2 atan κ = π + 2 atan(Im λ / Re λ); n = 60 fc / (N (k + ε/2π)).
  * The two eigenvalues come out of the quadratic formula in an order that flips where the complex
  * square root crosses its branch cut; they are re-ordered by continuity from one grid frequency to
- * the next, otherwise lobes would be stitched from pieces of different branches.
+ * the next, otherwise lobes would be stitched from pieces of different branches. Where a branch's
+ * Re λ changes sign or its phase turns fast, segments are bisected with exact receptances, so the
+ * coarse per-recipe grid finds the crossings a dense grid finds.
  */
 import type { DirectionalFactors } from "../directional-factors.js";
 import type { Mode } from "../mode.js";
 
 /** Receptances of the x and y directions on a frequency grid [mm/N]. */
 export interface FrfGrid {
+  /** The modes the grid was built from (a private copy: used to evaluate between grid points) */
+  modes: readonly Mode[];
   size: number;
   frequencyHz: Float64Array;
   xxRe: Float64Array;
@@ -33,7 +37,7 @@ export interface GridDensity {
 }
 
 /** Coarse grid for per-recipe checks (recommend). */
-export const FAST_GRID: GridDensity = { basePoints: 100, perModePoints: 100 };
+export const FAST_GRID: GridDensity = { basePoints: 48, perModePoints: 40 };
 /** Fine grid for drawing a lobe diagram. */
 export const FINE_GRID: GridDensity = { basePoints: 500, perModePoints: 500 };
 
@@ -99,7 +103,7 @@ export function frfOnGrid(modes: readonly Mode[], frequencyHz: Float64Array): Fr
       im[i]! -= e * s;
     }
   }
-  return { size, frequencyHz, xxRe, xxIm, yyRe, yyIm };
+  return { modes: modes.map((m) => ({ ...m })), size, frequencyHz, xxRe, xxIm, yyRe, yyIm };
 }
 
 /**
@@ -250,33 +254,48 @@ function eigen2(
  * feed direction (feeding along machine Y).
  */
 export function solveBranches(grid: FrfGrid, alpha: DirectionalFactors, flutes: number, ktNPerMm2: number, swapAxes: boolean): Branches {
-  const n = grid.size;
-  const lr0 = new Float64Array(n);
-  const li0 = new Float64Array(n);
-  const lr1 = new Float64Array(n);
-  const li1 = new Float64Array(n);
-  const a0 = new Float64Array(n);
-  const a1 = new Float64Array(n);
-  const e0 = new Float64Array(n);
-  const e1 = new Float64Array(n);
-  const fxr = swapAxes ? grid.yyRe : grid.xxRe;
-  const fxi = swapAxes ? grid.yyIm : grid.xxIm;
-  const fyr = swapAxes ? grid.xxRe : grid.yyRe;
-  const fyi = swapAxes ? grid.xxIm : grid.yyIm;
   const c = (2 * Math.PI) / (flutes * ktNPerMm2);
   const axx = alpha.xx;
   const ayy = alpha.yy;
   const det4 = 4 * (alpha.xx * alpha.yy - alpha.xy * alpha.yx);
-  let pr0 = 0;
-  let pi0 = 0;
-  let pr1 = 0;
-  let pi1 = 0;
-  for (let i = 0; i < n; i++) {
-    // Closed-form eigenvalues of [α][Φ] (see eigen2), inlined: this loop is the hot path.
-    const xr = fxr[i]!;
-    const xi = fxi[i]!;
-    const yr = fyr[i]!;
-    const yi = fyi[i]!;
+  const fxr = swapAxes ? grid.yyRe : grid.xxRe;
+  const fxi = swapAxes ? grid.yyIm : grid.xxIm;
+  const fyr = swapAxes ? grid.xxRe : grid.yyRe;
+  const fyi = swapAxes ? grid.xxIm : grid.yyIm;
+
+  // Growable output.
+  let capacity = grid.size + 64;
+  let freq = new Float64Array(capacity);
+  let lr0 = new Float64Array(capacity);
+  let li0 = new Float64Array(capacity);
+  let lr1 = new Float64Array(capacity);
+  let li1 = new Float64Array(capacity);
+  let n = 0;
+  const grow = (): void => {
+    capacity *= 2;
+    const g = (a: Float64Array<ArrayBuffer>): Float64Array<ArrayBuffer> => {
+      const b = new Float64Array(capacity);
+      b.set(a);
+      return b;
+    };
+    freq = g(freq);
+    lr0 = g(lr0);
+    li0 = g(li0);
+    lr1 = g(lr1);
+    li1 = g(li1);
+  };
+
+  // A point: frequency and the two eigenvalues, raw (quadratic-formula order) or tracked.
+  interface Pt {
+    f: number;
+    ar: number;
+    ai: number;
+    br: number;
+    bi: number;
+    depth: number;
+  }
+  // Closed-form eigenvalues of [α][Φ] (see eigen2), inlined for speed.
+  const eig = (f: number, xr: number, xi: number, yr: number, yi: number, depth: number): Pt => {
     const a1r = axx * xr + ayy * yr;
     const a1i = axx * xi + ayy * yi;
     const dr = a1r * a1r - a1i * a1i - det4 * (xr * yr - xi * yi);
@@ -285,54 +304,114 @@ export function solveBranches(grid: FrfGrid, alpha: DirectionalFactors, flutes: 
     const sr = Math.sqrt(Math.max(0, (mod + dr) * 0.5));
     const si0 = Math.sqrt(Math.max(0, (mod - dr) * 0.5));
     const si = di < 0 ? -si0 : si0;
-    let ar = (a1r + sr) * 0.5;
-    let ai = (a1i + si) * 0.5;
-    let br = (a1r - sr) * 0.5;
-    let bi = (a1i - si) * 0.5;
-    if (i > 0) {
-      const d00r = ar - pr0;
-      const d00i = ai - pi0;
-      const d11r = br - pr1;
-      const d11i = bi - pi1;
-      const d10r = br - pr0;
-      const d10i = bi - pi0;
-      const d01r = ar - pr1;
-      const d01i = ai - pi1;
-      const straight = d00r * d00r + d00i * d00i + d11r * d11r + d11i * d11i;
-      const swapped = d10r * d10r + d10i * d10i + d01r * d01r + d01i * d01i;
-      if (swapped < straight) {
-        const tr = ar;
-        const ti = ai;
-        ar = br;
-        ai = bi;
-        br = tr;
-        bi = ti;
+    return { f, ar: (a1r + sr) * 0.5, ai: (a1i + si) * 0.5, br: (a1r - sr) * 0.5, bi: (a1i - si) * 0.5, depth };
+  };
+  // Exact receptances between grid points, from the grid's own copy of the modes.
+  const eigBetween = (f: number, depth: number): Pt => {
+    let xr = 0;
+    let xi = 0;
+    let yr = 0;
+    let yi = 0;
+    for (const m of grid.modes) {
+      const r = f / m.frequencyHz;
+      const d = 1 - r * r;
+      const e = 2 * m.dampingRatio * r;
+      const k = 1 / (m.stiffnessNPerMm * (d * d + e * e));
+      if ((m.direction === "x") !== swapAxes) {
+        xr += d * k;
+        xi -= e * k;
+      } else {
+        yr += d * k;
+        yi -= e * k;
       }
     }
-    lr0[i] = ar;
-    li0[i] = ai;
-    lr1[i] = br;
-    li1[i] = bi;
+    return eig(f, xr, xi, yr, yi, depth);
+  };
+  // Order q's two eigenvalues to continue p's branches (the smaller total jump).
+  const track = (p: Pt, q: Pt): void => {
+    const s0 = (q.ar - p.ar) ** 2 + (q.ai - p.ai) ** 2 + (q.br - p.br) ** 2 + (q.bi - p.bi) ** 2;
+    const s1 = (q.br - p.ar) ** 2 + (q.bi - p.ai) ** 2 + (q.ar - p.br) ** 2 + (q.ai - p.bi) ** 2;
+    if (s1 < s0) {
+      const tr = q.ar;
+      const ti = q.ai;
+      q.ar = q.br;
+      q.ai = q.bi;
+      q.br = tr;
+      q.bi = ti;
+    }
+  };
+  const phase = (lr: number, li: number): number => Math.PI + 2 * Math.atan(li / lr);
+  // A segment needs more points where a branch gains or loses a boundary (Re λ changes sign: the
+  // boundary runs to infinity there and crossings hide next to it) or its phase turns fast.
+  const MAX_DEPTH = 10;
+  const TURN = 0.25;
+  const needsSplit = (p: Pt, q: Pt): boolean => {
+    if (q.depth >= MAX_DEPTH) return false;
+    if (p.ar > 0 !== q.ar > 0 || p.br > 0 !== q.br > 0) return true;
+    if (p.ar > 0 && Math.abs(phase(q.ar, q.ai) - phase(p.ar, p.ai)) > TURN) return true;
+    if (p.br > 0 && Math.abs(phase(q.br, q.bi) - phase(p.br, p.bi)) > TURN) return true;
+    return false;
+  };
+  const emit = (q: Pt): void => {
+    if (n === capacity) grow();
+    freq[n] = q.f;
+    lr0[n] = q.ar;
+    li0[n] = q.ai;
+    lr1[n] = q.br;
+    li1[n] = q.bi;
+    n++;
+  };
+
+  let prev = eig(grid.frequencyHz[0]!, fxr[0]!, fxi[0]!, fyr[0]!, fyi[0]!, 0);
+  emit(prev);
+  const stack: Pt[] = [];
+  for (let i = 1; i < grid.size; i++) {
+    stack.push(eig(grid.frequencyHz[i]!, fxr[i]!, fxi[i]!, fyr[i]!, fyi[i]!, 0));
+    while (stack.length > 0) {
+      const q = stack[stack.length - 1]!;
+      track(prev, q);
+      if (needsSplit(prev, q)) {
+        q.depth++;
+        stack.push(eigBetween(0.5 * (prev.f + q.f), q.depth));
+        continue;
+      }
+      stack.pop();
+      emit(q);
+      prev = q;
+    }
+  }
+
+  const a0 = new Float64Array(n);
+  const a1 = new Float64Array(n);
+  const e0 = new Float64Array(n);
+  const e1 = new Float64Array(n);
+  for (let i = 0; i < n; i++) {
+    const ar = lr0[i]!;
+    const br = lr1[i]!;
     if (ar > 0) {
       a0[i] = c / ar;
-      e0[i] = Math.PI + 2 * Math.atan(ai / ar);
+      e0[i] = phase(ar, li0[i]!);
     } else {
       a0[i] = -1;
       e0[i] = 0;
     }
     if (br > 0) {
       a1[i] = c / br;
-      e1[i] = Math.PI + 2 * Math.atan(bi / br);
+      e1[i] = phase(br, li1[i]!);
     } else {
       a1[i] = -1;
       e1[i] = 0;
     }
-    pr0 = ar;
-    pi0 = ai;
-    pr1 = br;
-    pi1 = bi;
   }
-  return { size: n, frequencyHz: grid.frequencyHz, lr: [lr0, lr1], li: [li0, li1], a: [a0, a1], eps: [e0, e1], scale: c };
+  return {
+    size: n,
+    frequencyHz: freq.slice(0, n),
+    lr: [lr0.slice(0, n), lr1.slice(0, n)],
+    li: [li0.slice(0, n), li1.slice(0, n)],
+    a: [a0, a1],
+    eps: [e0, e1],
+    scale: c,
+  };
 }
 
 /** Where the boundary at one speed was found. */
