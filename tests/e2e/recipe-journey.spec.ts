@@ -206,6 +206,8 @@ test("a recipe goes from the planner through a test-cut ladder, proof and approv
   const log = phone.getByRole("list", { name: "Cut log" });
   const photo = log.getByRole("img", { name: /Photo 1 of the cut logged by Sunniva Brack/ });
   await expect(photo).toBeVisible();
+  // Thumbnails load lazily: bring it on screen first.
+  await photo.scrollIntoViewIfNeeded();
   await expect.poll(() => photo.evaluate((img: HTMLImageElement) => img.complete && img.naturalWidth)).toBe(1);
   await phoneContext.close();
 });
