@@ -270,6 +270,8 @@ export function solveBranches(grid: FrfGrid, alpha: DirectionalFactors, flutes: 
   let li0 = new Float64Array(capacity);
   let lr1 = new Float64Array(capacity);
   let li1 = new Float64Array(capacity);
+  let ph0 = new Float64Array(capacity);
+  let ph1 = new Float64Array(capacity);
   let n = 0;
   const grow = (): void => {
     capacity *= 2;
@@ -283,6 +285,8 @@ export function solveBranches(grid: FrfGrid, alpha: DirectionalFactors, flutes: 
     li0 = g(li0);
     lr1 = g(lr1);
     li1 = g(li1);
+    ph0 = g(ph0);
+    ph1 = g(ph1);
   };
 
   // A point: frequency and the two eigenvalues, raw (quadratic-formula order) or tracked.
@@ -292,10 +296,13 @@ export function solveBranches(grid: FrfGrid, alpha: DirectionalFactors, flutes: 
     ai: number;
     br: number;
     bi: number;
+    /** ε of each branch (0 where Re λ ≤ 0), set once the point is tracked */
+    ea: number;
+    eb: number;
     depth: number;
   }
-  // Closed-form eigenvalues of [α][Φ] (see eigen2), inlined for speed.
-  const eig = (f: number, xr: number, xi: number, yr: number, yi: number, depth: number): Pt => {
+  // Closed-form eigenvalues of [α][Φ] (see eigen2), inlined for speed; written into `out`.
+  const eigInto = (out: Pt, f: number, xr: number, xi: number, yr: number, yi: number, depth: number): Pt => {
     const a1r = axx * xr + ayy * yr;
     const a1i = axx * xi + ayy * yi;
     const dr = a1r * a1r - a1i * a1i - det4 * (xr * yr - xi * yi);
@@ -304,8 +311,16 @@ export function solveBranches(grid: FrfGrid, alpha: DirectionalFactors, flutes: 
     const sr = Math.sqrt(Math.max(0, (mod + dr) * 0.5));
     const si0 = Math.sqrt(Math.max(0, (mod - dr) * 0.5));
     const si = di < 0 ? -si0 : si0;
-    return { f, ar: (a1r + sr) * 0.5, ai: (a1i + si) * 0.5, br: (a1r - sr) * 0.5, bi: (a1i - si) * 0.5, depth };
+    out.f = f;
+    out.ar = (a1r + sr) * 0.5;
+    out.ai = (a1i + si) * 0.5;
+    out.br = (a1r - sr) * 0.5;
+    out.bi = (a1i - si) * 0.5;
+    out.depth = depth;
+    return out;
   };
+  const newPt = (): Pt => ({ f: 0, ar: 0, ai: 0, br: 0, bi: 0, ea: 0, eb: 0, depth: 0 });
+  const eig = (f: number, xr: number, xi: number, yr: number, yi: number, depth: number): Pt => eigInto(newPt(), f, xr, xi, yr, yi, depth);
   // Exact receptances between grid points, from the grid's own copy of the modes.
   const eigBetween = (f: number, depth: number): Pt => {
     let xr = 0;
@@ -327,11 +342,17 @@ export function solveBranches(grid: FrfGrid, alpha: DirectionalFactors, flutes: 
     }
     return eig(f, xr, xi, yr, yi, depth);
   };
-  // Order q's two eigenvalues to continue p's branches (the smaller total jump).
+  // Order q's two eigenvalues to continue p's branches (the smaller total jump), then its phases.
   const track = (p: Pt, q: Pt): void => {
-    const s0 = (q.ar - p.ar) ** 2 + (q.ai - p.ai) ** 2 + (q.br - p.br) ** 2 + (q.bi - p.bi) ** 2;
-    const s1 = (q.br - p.ar) ** 2 + (q.bi - p.ai) ** 2 + (q.ar - p.br) ** 2 + (q.ai - p.bi) ** 2;
-    if (s1 < s0) {
+    const d0r = q.ar - p.ar;
+    const d0i = q.ai - p.ai;
+    const d1r = q.br - p.br;
+    const d1i = q.bi - p.bi;
+    const x0r = q.br - p.ar;
+    const x0i = q.bi - p.ai;
+    const x1r = q.ar - p.br;
+    const x1i = q.ai - p.bi;
+    if (x0r * x0r + x0i * x0i + x1r * x1r + x1i * x1i < d0r * d0r + d0i * d0i + d1r * d1r + d1i * d1i) {
       const tr = q.ar;
       const ti = q.ai;
       q.ar = q.br;
@@ -339,8 +360,9 @@ export function solveBranches(grid: FrfGrid, alpha: DirectionalFactors, flutes: 
       q.br = tr;
       q.bi = ti;
     }
+    q.ea = q.ar > 0 ? Math.PI + 2 * Math.atan(q.ai / q.ar) : 0;
+    q.eb = q.br > 0 ? Math.PI + 2 * Math.atan(q.bi / q.br) : 0;
   };
-  const phase = (lr: number, li: number): number => Math.PI + 2 * Math.atan(li / lr);
   // A segment needs more points where a branch gains or loses a boundary (Re λ changes sign: the
   // boundary runs to infinity there and crossings hide next to it) or its phase turns fast.
   const MAX_DEPTH = 10;
@@ -348,8 +370,8 @@ export function solveBranches(grid: FrfGrid, alpha: DirectionalFactors, flutes: 
   const needsSplit = (p: Pt, q: Pt): boolean => {
     if (q.depth >= MAX_DEPTH) return false;
     if (p.ar > 0 !== q.ar > 0 || p.br > 0 !== q.br > 0) return true;
-    if (p.ar > 0 && Math.abs(phase(q.ar, q.ai) - phase(p.ar, p.ai)) > TURN) return true;
-    if (p.br > 0 && Math.abs(phase(q.br, q.bi) - phase(p.br, p.bi)) > TURN) return true;
+    if (p.ar > 0 && Math.abs(q.ea - p.ea) > TURN) return true;
+    if (p.br > 0 && Math.abs(q.eb - p.eb) > TURN) return true;
     return false;
   };
   const emit = (q: Pt): void => {
@@ -359,49 +381,49 @@ export function solveBranches(grid: FrfGrid, alpha: DirectionalFactors, flutes: 
     li0[n] = q.ai;
     lr1[n] = q.br;
     li1[n] = q.bi;
+    ph0[n] = q.ea;
+    ph1[n] = q.eb;
     n++;
   };
 
   let prev = eig(grid.frequencyHz[0]!, fxr[0]!, fxi[0]!, fyr[0]!, fyi[0]!, 0);
+  prev.ea = prev.ar > 0 ? Math.PI + 2 * Math.atan(prev.ai / prev.ar) : 0;
+  prev.eb = prev.br > 0 ? Math.PI + 2 * Math.atan(prev.bi / prev.br) : 0;
   emit(prev);
   const stack: Pt[] = [];
+  // Two points alternate as "previous" and "current" in the common case: no allocation per grid point.
+  let spare = newPt();
   for (let i = 1; i < grid.size; i++) {
-    stack.push(eig(grid.frequencyHz[i]!, fxr[i]!, fxi[i]!, fyr[i]!, fyi[i]!, 0));
+    const q = eigInto(spare, grid.frequencyHz[i]!, fxr[i]!, fxi[i]!, fyr[i]!, fyi[i]!, 0);
+    track(prev, q);
+    if (!needsSplit(prev, q)) {
+      emit(q);
+      spare = prev;
+      prev = q;
+      continue;
+    }
+    stack.push({ ...q });
     while (stack.length > 0) {
-      const q = stack[stack.length - 1]!;
-      track(prev, q);
-      if (needsSplit(prev, q)) {
-        q.depth++;
-        stack.push(eigBetween(0.5 * (prev.f + q.f), q.depth));
+      const top = stack[stack.length - 1]!;
+      track(prev, top);
+      if (needsSplit(prev, top)) {
+        top.depth++;
+        stack.push(eigBetween(0.5 * (prev.f + top.f), top.depth));
         continue;
       }
       stack.pop();
-      emit(q);
-      prev = q;
+      emit(top);
+      prev = top;
     }
   }
 
   const a0 = new Float64Array(n);
   const a1 = new Float64Array(n);
-  const e0 = new Float64Array(n);
-  const e1 = new Float64Array(n);
   for (let i = 0; i < n; i++) {
     const ar = lr0[i]!;
     const br = lr1[i]!;
-    if (ar > 0) {
-      a0[i] = c / ar;
-      e0[i] = phase(ar, li0[i]!);
-    } else {
-      a0[i] = -1;
-      e0[i] = 0;
-    }
-    if (br > 0) {
-      a1[i] = c / br;
-      e1[i] = phase(br, li1[i]!);
-    } else {
-      a1[i] = -1;
-      e1[i] = 0;
-    }
+    a0[i] = ar > 0 ? c / ar : -1;
+    a1[i] = br > 0 ? c / br : -1;
   }
   return {
     size: n,
@@ -409,7 +431,7 @@ export function solveBranches(grid: FrfGrid, alpha: DirectionalFactors, flutes: 
     lr: [lr0.slice(0, n), lr1.slice(0, n)],
     li: [li0.slice(0, n), li1.slice(0, n)],
     a: [a0, a1],
-    eps: [e0, e1],
+    eps: [ph0.slice(0, n), ph1.slice(0, n)],
     scale: c,
   };
 }
