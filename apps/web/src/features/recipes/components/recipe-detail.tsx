@@ -233,10 +233,10 @@ export function RecipeDetail({
               system={system}
               used={server.data ? { axialDepthMm: server.data.recommendation.axialDepthMm, radialDepthMm: server.data.recommendation.radialDepthMm } : undefined}
             />
-            {recipe.result.bindingLimit ? (
-              <p className="text-sm font-medium text-limit">Held back by: {recipe.result.bindingLimit.charAt(0).toLowerCase() + recipe.result.bindingLimit.slice(1)}</p>
-            ) : (
-              <p className="text-sm text-ok">Nothing held this recipe back: every limit had room.</p>
+            {recipe.result.bindingLimit && (
+              <p className="text-sm font-medium text-limit">
+                Held back by: {recipe.result.bindingLimit.charAt(0).toLowerCase() + recipe.result.bindingLimit.slice(1)}
+              </p>
             )}
             {recipe.result.stable === false && <p className="text-sm font-medium text-limit">Chatter is likely at this speed and depth.</p>}
             <SafetyBand />
@@ -262,23 +262,6 @@ export function RecipeDetail({
             )}
           </Section>
 
-          <Section title="Test-cut ladder" description="Step one parameter on scrap stock, score each rung, keep the best.">
-            <LadderSection shopId={shopId} recipe={recipe} system={system} canBuild={editor && recipe.status !== "retired"} canScore={canLog} />
-          </Section>
-
-          <Section
-            title="Cut log"
-            actions={
-              canLog ? (
-                <Link to={`/log/${recipe.id}`} className={linkButton}>
-                  <ClipboardPen className="size-4" aria-hidden />
-                  Log a cut
-                </Link>
-              ) : undefined
-            }
-          >
-            {cutLog}
-          </Section>
         </div>
 
         <div className="flex min-w-0 flex-col gap-6">
@@ -299,6 +282,24 @@ export function RecipeDetail({
           </Section>
         </div>
       </div>
+
+      <Section title="Test-cut ladder" description="Step one parameter on scrap stock, score each rung, keep the best.">
+        <LadderSection shopId={shopId} recipe={recipe} system={system} canBuild={editor && recipe.status !== "retired"} canScore={canLog} />
+      </Section>
+
+      <Section
+        title="Cut log"
+        actions={
+          canLog ? (
+            <Link to={`/log/${recipe.id}`} className={linkButton}>
+              <ClipboardPen className="size-4" aria-hidden />
+              Log a cut
+            </Link>
+          ) : undefined
+        }
+      >
+        {cutLog}
+      </Section>
 
       {acting && (
         <TransitionDialog

@@ -104,7 +104,7 @@ function apply<T>(updater: Updater<T>, old: T): T {
   return typeof updater === "function" ? (updater as (o: T) => T)(old) : updater;
 }
 
-const dateFormat = new Intl.DateTimeFormat("en-GB", { day: "numeric", month: "short", year: "numeric" });
+const dateFormat = new Intl.DateTimeFormat("en-GB", { day: "numeric", month: "short", year: "2-digit" });
 
 /**
  * The shop's recipes: a server-side table (filters, sort and page are the server's work, so it
@@ -136,6 +136,10 @@ export function RecipesPage({ shopId, role, system, options }: { shopId: string;
                 <span>{operationLabels[r.operation]}</span>
                 <span aria-hidden>·</span>
                 <span>rev. {r.revision}</span>
+                <span aria-hidden>·</span>
+                <span>
+                  {r.cutLogCount} {r.cutLogCount === 1 ? "cut" : "cuts"} logged
+                </span>
                 {r.needsRecheck && (
                   <Badge tone="near" title="The machine, cutter, assembly or material changed since this recipe was computed">
                     <RefreshCw className="size-3" aria-hidden />
@@ -148,9 +152,19 @@ export function RecipesPage({ shopId, role, system, options }: { shopId: string;
         },
       },
       { id: "status", header: "Status", accessorKey: "status", cell: ({ row }) => <RecipeStatusBadge status={row.original.status} /> },
-      { id: "machineName", header: "Machine", accessorKey: "machineName", meta: { className: "min-w-40" } },
-      { id: "cutterName", header: "Cutter", accessorKey: "cutterName", meta: { className: "min-w-44" } },
-      { id: "materialName", header: "Material", accessorKey: "materialName", meta: { className: "min-w-44" } },
+      {
+        id: "machineName",
+        header: "Machine and cutter",
+        accessorKey: "machineName",
+        meta: { className: "min-w-44" },
+        cell: ({ row }) => (
+          <div>
+            <div className="text-ink">{row.original.machineName}</div>
+            <div className="text-xs text-muted">{row.original.cutterName}</div>
+          </div>
+        ),
+      },
+      { id: "materialName", header: "Material", accessorKey: "materialName", meta: { className: "min-w-36" } },
       {
         id: "rpm",
         header: "Spindle speed",
@@ -172,13 +186,6 @@ export function RecipesPage({ shopId, role, system, options }: { shopId: string;
         enableSorting: false,
         meta: { numeric: true },
         cell: ({ row }) => <MeasureValue value={row.original.result.chipLoadMm} measure={measures.chipLoad} system={system} />,
-      },
-      {
-        id: "cutLogCount",
-        header: "Cuts logged",
-        accessorKey: "cutLogCount",
-        enableSorting: false,
-        meta: { numeric: true },
       },
       {
         id: "updatedAt",
