@@ -88,7 +88,6 @@ export function PlannerRoute() {
   const system = useUnitSystem();
   const [search] = useSearchParams();
   // Read once: later edits live in the form, not the address.
-  // eslint-disable-next-line react-hooks/exhaustive-deps
   const initial = useMemo(() => initialFromSearch(search, system), []);
 
   return (

@@ -392,19 +392,19 @@ function useLibraryDefaults(
   machine: Machine | null,
   cutter: Cutter | null,
 ) {
+  // Each effect runs when its record arrives or changes (its id), not on every render: the form
+  // methods are stable and the values are read when the effect runs.
   const { getValues, setValue, getFieldState } = form;
   const set = (name: keyof PlannerValues, value: string) => setValue(name, value as never, { shouldDirty: false });
 
   useEffect(() => {
     if (!machines || machines.length === 0) return;
     if (!machines.some((m) => m.id === getValues("machineId"))) set("machineId", machines[0]!.id);
-    // eslint-disable-next-line react-hooks/exhaustive-deps
   }, [machines]);
 
   useEffect(() => {
     if (!assemblies) return;
     if (!assemblies.some((a) => a.id === getValues("assemblyId"))) set("assemblyId", assemblies[0]?.id ?? "");
-    // eslint-disable-next-line react-hooks/exhaustive-deps
   }, [assemblies]);
 
   useEffect(() => {
@@ -413,7 +413,6 @@ function useLibraryDefaults(
       const first = materialGroups(materials)[0]?.items[0];
       if (first) set("materialId", first.id);
     }
-    // eslint-disable-next-line react-hooks/exhaustive-deps
   }, [materials]);
 
   // On the first machine and cutter, values given at the start (e.g. from a recipe) are kept;
@@ -428,7 +427,6 @@ function useLibraryDefaults(
     first.current.machine = false;
     if (!keep("workX", isFirst)) set("workX", lengthInputText(machine.axes.x.travelMm / 2, system));
     if (!keep("workY", isFirst)) set("workY", lengthInputText(machine.axes.y.travelMm / 2, system));
-    // eslint-disable-next-line react-hooks/exhaustive-deps
   }, [machine?.id]);
 
   useEffect(() => {
@@ -440,7 +438,6 @@ function useLibraryDefaults(
     const d = cutter.diameterMm;
     if (!keep("axialDepth", isFirst)) set("axialDepth", lengthInputText(Math.min(d, cutter.fluteLengthMm), system));
     if (!keep("radialDepth", isFirst)) set("radialDepth", lengthInputText(d / 4, system));
-    // eslint-disable-next-line react-hooks/exhaustive-deps
   }, [cutter?.id]);
 }
 
