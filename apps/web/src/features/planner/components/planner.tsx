@@ -198,6 +198,7 @@ export function Planner({ shopId, role, system, initial, evidence }: PlannerProp
           params: parsed.params,
           suggestedName: `${assembly.cutterName ?? "Cutter"} in ${material.name}, ${OPERATION_CHOICES.find((o) => o.value === deferred.operation)?.label.toLowerCase()}`,
           summary: summarizeRecommendation(plan.rec),
+          broken: plan.rec.limits.filter((l) => !l.holds).map((l) => l.label),
         }
       : null;
 

@@ -25,6 +25,8 @@ export interface SaveBody {
   suggestedName: string;
   /** What the browser computed, shown for reference; the server recomputes before storing. */
   summary: RecipeResultSummary;
+  /** Limits the cut breaks (the engine could not bring it within them). */
+  broken: string[];
 }
 
 /** Names the planned cut and saves it as a draft recipe, then opens it. */
@@ -66,6 +68,11 @@ export function SaveRecipeDialog({ shopId, open, onClose, body }: { shopId: stri
         {({ register, formState }) => (
           <>
             <FormError />
+            {body.broken.length > 0 && (
+              <p className="rounded-md border border-limit/40 bg-limit/5 px-3 py-2 text-sm text-limit">
+                This cut is outside a limit ({body.broken.join("; ").toLowerCase()}). It is saved as a draft to rework, not to run.
+              </p>
+            )}
             <TextField name="name" label="Recipe name" />
             <FocusField name="name" />
             <div className="flex flex-col gap-1.5">
