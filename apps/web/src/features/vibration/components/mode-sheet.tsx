@@ -103,7 +103,7 @@ export function ModeSheet({
               role="radio"
               aria-checked={how === value}
               onClick={() => setHow(value)}
-              className={cn("h-8 cursor-pointer rounded text-sm font-medium text-muted hover:text-ink", how === value && "bg-brand-tint text-brand")}
+              className={cn("h-8 cursor-pointer rounded text-sm font-medium", how === value ? "bg-brand-tint text-brand" : "text-muted hover:text-ink")}
             >
               {label}
             </button>

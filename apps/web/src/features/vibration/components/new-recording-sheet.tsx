@@ -139,8 +139,8 @@ export function NewRecordingSheet({
             disabled={recordingBusy || uploading}
             onClick={() => setSource(value)}
             className={cn(
-              "inline-flex h-9 cursor-pointer items-center justify-center gap-2 rounded text-sm font-medium text-muted hover:text-ink disabled:cursor-not-allowed",
-              source === value && "bg-brand-tint text-brand",
+              "inline-flex h-9 cursor-pointer items-center justify-center gap-2 rounded text-sm font-medium disabled:cursor-not-allowed",
+              source === value ? "bg-brand-tint text-brand" : "text-muted hover:text-ink",
             )}
           >
             <Icon className="size-4" aria-hidden />

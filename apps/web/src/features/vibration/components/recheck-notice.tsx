@@ -46,7 +46,7 @@ export function RecheckNotice({ saved, outcome, system, onDismiss }: { saved: st
           {changes.map((c, i) => (
             <li key={`${c.what}-${c.direction}-${i}`}>
               {describeChange(c, system)}
-              {c.changePct !== null && !c.material && <span className="text-muted"> — within {formatQuantity(RECHECK_THRESHOLD_PCT, "%")}</span>}
+              {c.changePct !== null && !c.material && <span className="text-ink/75"> — within {formatQuantity(RECHECK_THRESHOLD_PCT, "%")}</span>}
             </li>
           ))}
         </ul>
@@ -58,9 +58,11 @@ export function RecheckNotice({ saved, outcome, system, onDismiss }: { saved: st
             Review recipes
           </Link>
         </p>
-      ) : changes.some((c) => c.material === false) || changes.length === 0 ? (
-        <p className="mt-1 text-muted">No recipe needs a re-check: nothing moved by more than {formatQuantity(RECHECK_THRESHOLD_PCT, "%")}.</p>
-      ) : null}
+      ) : changes.some((c) => c.material) ? (
+        <p className="mt-1 text-ink/75">The change passes {formatQuantity(RECHECK_THRESHOLD_PCT, "%")}, but no recipe on this machine needed flagging.</p>
+      ) : (
+        <p className="mt-1 text-ink/75">No recipe needs a re-check: nothing moved by more than {formatQuantity(RECHECK_THRESHOLD_PCT, "%")}.</p>
+      )}
     </Notice>
   );
 }

@@ -82,8 +82,8 @@ export function StiffnessHeatMap({ map, system }: { map: StiffnessMap; system: U
                 aria-pressed={chosen === d}
                 onClick={() => setChosen(d)}
                 className={cn(
-                  "h-7 cursor-pointer rounded px-3 text-sm font-medium text-muted hover:text-ink",
-                  chosen === d && "bg-surface text-ink shadow-sm",
+                  "h-7 cursor-pointer rounded px-3 text-sm font-medium",
+                  chosen === d ? "bg-surface text-ink shadow-sm" : "text-muted hover:text-ink",
                 )}
               >
                 {d.toUpperCase()}

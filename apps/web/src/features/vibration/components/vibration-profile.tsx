@@ -58,8 +58,8 @@ export function VibrationProfile({ shopId, role, machine, system }: { shopId: st
               );
             }}
             className={cn(
-              "-mb-px cursor-pointer border-b-2 border-transparent px-3 py-2 text-sm font-medium text-muted hover:text-ink",
-              tab === t.id && "border-brand text-ink",
+              "-mb-px cursor-pointer border-b-2 px-3 py-2 text-sm font-medium",
+              tab === t.id ? "border-brand text-ink" : "border-transparent text-muted hover:text-ink",
             )}
           >
             {t.label}
