@@ -29,7 +29,7 @@ export function Notice({ children, onDismiss, tone = "ok" }: { children: ReactNo
     >
       <div>{children}</div>
       {onDismiss && (
-        <button type="button" onClick={onDismiss} className="cursor-pointer text-xs font-medium text-muted underline hover:text-ink">
+        <button type="button" onClick={onDismiss} className="cursor-pointer text-xs font-medium text-ink/75 underline hover:text-ink">
           Dismiss
         </button>
       )}
