@@ -10,3 +10,6 @@ ensure_dependencies
 
 log "Machining engine benchmarks"
 npm run --silent bench -w @ringdown/machining
+
+log "Chart benchmark (spectrum of 100 000 points in Chromium)"
+npm run --silent bench -w @ringdown/tests
