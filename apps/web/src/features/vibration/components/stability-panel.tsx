@@ -33,7 +33,7 @@ export function describeHit(hit: ResonanceHit): string {
   return `${what} falls in the avoided band ${formatNumber(hit.targetHz, { significantDigits: 4 })}–${formatQuantity(hit.bandMaxHz ?? hit.targetHz, "Hz", { significantDigits: 4 })}${hit.label ? ` (${hit.label})` : ""}.`;
 }
 
-function Legend({ hasEvidence }: { hasEvidence: boolean }) {
+function Legend({ tones }: { tones: ReadonlySet<EvidenceTone> }) {
   const item = (svg: React.ReactNode, label: string) => (
     <li className="inline-flex items-center gap-1.5">
       <svg width="18" height="14" aria-hidden>
@@ -53,14 +53,10 @@ function Legend({ hasEvidence }: { hasEvidence: boolean }) {
         "Allowed depth (stable with margin)",
       )}
       {item(<path d="M9 1 L16 7 L9 13 L2 7 Z" fill={chart.brand} stroke="#FFFFFF" />, "This recipe")}
-      {hasEvidence && (
-        <>
-          {item(<circle cx="9" cy="7" r="3.5" fill={chart.ok} />, "Logged: ran clean")}
-          {item(<path d="M5.5 3.5 L12.5 10.5 M12.5 3.5 L5.5 10.5" stroke={chart.limit} strokeWidth="1.5" />, "Logged: chatter")}
-          {item(<path d="M9 3 L13 10.5 L5 10.5 Z" fill="none" stroke={chart.near} strokeWidth="1.5" />, "Logged: burn, finish or breakage")}
-          {item(<rect x="5.5" y="3.5" width="7" height="7" fill="none" stroke={chart.muted} strokeWidth="1.5" />, "Logged: other")}
-        </>
-      )}
+      {tones.has("clean") && item(<circle cx="9" cy="7" r="3.5" fill={chart.ok} />, "Logged cut: ran clean")}
+      {tones.has("chatter") && item(<path d="M5.5 3.5 L12.5 10.5 M12.5 3.5 L5.5 10.5" stroke={chart.limit} strokeWidth="1.5" />, "Logged cut: chatter")}
+      {tones.has("problem") && item(<path d="M9 3 L13 10.5 L5 10.5 Z" fill="none" stroke={chart.near} strokeWidth="1.5" />, "Logged cut: burn, poor finish or breakage")}
+      {tones.has("other") && item(<rect x="5.5" y="3.5" width="7" height="7" fill="none" stroke={chart.muted} strokeWidth="1.5" />, "Logged cut: other")}
     </ul>
   );
 }
@@ -189,7 +185,7 @@ export function StabilityPanel({
             </span>
           </p>
           <LobeChart curve={curve} safetyFactor={safetyFactor} current={current} evidence={evidence} system={system} />
-          <Legend hasEvidence={evidence.length > 0} />
+          <Legend tones={new Set(evidence.map((e) => e.tone))} />
           <div>
             <h3 className="text-sm font-semibold text-ink">Nearest stable pockets at {formatMeasure(depth, measures.length, system)} deep</h3>
             {pockets.length === 0 ? (
@@ -201,7 +197,10 @@ export function StabilityPanel({
                     {formatNumber(p.minRpm, { fractionDigits: 0 })}–{formatQuantity(p.maxRpm, "rpm", { fractionDigits: 0 })}
                     <span className="text-muted">
                       {" "}
-                      · up to {p.maxAllowedDepthMm === null ? "any depth in the analysed band" : formatMeasure(p.maxAllowedDepthMm, measures.length, system)}
+                      · deepest allowed{" "}
+                      {p.maxAllowedDepthMm === null
+                        ? "unbounded in the analysed band"
+                        : `${formatMeasure(p.maxAllowedDepthMm, measures.length, system)} at ${formatQuantity(p.bestRpm, "rpm", { fractionDigits: 0 })}`}
                       {p.distanceRpm === 0 ? " · this recipe's speed is in it" : ""}
                     </span>
                   </li>
