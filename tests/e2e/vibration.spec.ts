@@ -90,17 +90,37 @@ test("a tooling manager records a cut with the microphone, uploads it, and reads
   await expect(page.getByRole("row", { name: /^(399\.\d|400(\.\d)?)\s?Hz Tooth passing · harmonic 1 / })).toBeVisible();
 });
 
-test("a new shop measures its machine: stiffness readings with refused values, the bed map, an estimated mode and ceilings", async ({ page }) => {
-  test.setTimeout(180_000);
-  const account = newAccount();
-  await signUp(page, account);
-  // A machine from the gantry-router defaults, created through the API the machine page uses.
+/** Signs up a new shop (its owner) with one machine from the gantry-router defaults, created through the API the machine page uses. */
+async function newShopWithMachine(page: Page, name: string) {
+  await signUp(page, newAccount());
   const me = (await (await page.request.get("/api/me")).json()) as { activeShopId: string };
   const defaults = (await (await page.request.get(`/api/shops/${me.activeShopId}/machines/defaults?kind=gantry_router`)).json()) as Record<string, unknown>;
-  const created = await page.request.post(`/api/shops/${me.activeShopId}/machines`, { data: { ...defaults, name: "Kestrel test router" } });
+  const created = await page.request.post(`/api/shops/${me.activeShopId}/machines`, { data: { ...defaults, name } });
   expect(created.status()).toBe(201);
-
   await page.reload();
+}
+
+/**
+ * A measured frequency response as CSV: one mode, G(f) = 1 / (k · (1 − r² + 2iζr)), r = f / fn
+ * (single-degree-of-freedom receptance, Schmitz & Smith, Machining Dynamics, 2009, ch. 2 — from
+ * memory), with fn = 180 Hz, ζ = 0.04, k = 900 N/mm, from 20 to 600 Hz in 1 Hz steps [mm/N].
+ */
+function frfCsv(): string {
+  const [fn, zeta, k] = [180, 0.04, 900];
+  const lines = ["frequency_hz,real,imag"];
+  for (let f = 20; f <= 600; f++) {
+    const r = f / fn;
+    const a = 1 - r * r;
+    const b = 2 * zeta * r;
+    const d = k * (a * a + b * b);
+    lines.push(`${f},${(a / d).toExponential(8)},${(-b / d).toExponential(8)}`);
+  }
+  return lines.join("\n") + "\n";
+}
+
+test("a new shop measures its machine: stiffness readings with refused values, the bed map, an estimated mode and ceilings", async ({ page }) => {
+  test.setTimeout(180_000);
+  await newShopWithMachine(page, "Kestrel test router");
   await openProfile(page, /^Kestrel test router/);
   await expect(page.getByText("No stiffness readings yet")).toBeVisible();
 
@@ -147,4 +167,33 @@ test("a new shop measures its machine: stiffness readings with refused values, t
   await page.getByLabel("Band 1: why").fill("dust hood panel rings");
   await page.getByRole("button", { name: "Save ceilings" }).click();
   await expect(page.getByRole("status").filter({ hasText: "Saved the ceilings." })).toBeVisible();
+});
+
+test("a frequency response uploaded as CSV is fitted, and its mode is added to the machine in one click", async ({ page }) => {
+  test.setTimeout(180_000);
+  await newShopWithMachine(page, "Merlin test router");
+  await openProfile(page, /^Merlin test router/);
+  await page.getByRole("tab", { name: "Recordings" }).click();
+  await page.getByRole("button", { name: "Upload a file" }).click();
+
+  const sheet = page.getByRole("dialog", { name: "New recording" });
+  await sheet.getByLabel("File", { exact: true }).setInputFiles({ name: "merlin-frf-y.csv", mimeType: "text/csv", buffer: Buffer.from(frfCsv()) });
+  await sheet.getByLabel("What was recorded").selectOption("frf");
+  // The direction is required for a frequency response: the form says so before anything is sent.
+  await sheet.getByRole("button", { name: "Upload and analyse" }).click();
+  await expect(sheet.getByText("Choose the direction the recording measured")).toBeVisible();
+  await sheet.getByLabel("Direction").selectOption("y");
+  await sheet.getByRole("button", { name: "Upload and analyse" }).click();
+
+  await expect(page.getByText("Analysed", { exact: true })).toBeVisible({ timeout: 90_000 });
+  const found = page.getByRole("region", { name: "Mode found in Y" });
+  // Half-power fit of the synthetic mode: fn ≈ 180 Hz (the magnitude peaks at fn·√(1 − 2ζ²) = 179.7 Hz).
+  await expect(found.getByText(/^1(79|80)(\.\d)?\s?Hz$/)).toBeVisible();
+  await found.getByRole("button", { name: "Add to this machine's modes" }).click();
+  await expect(found.getByText("Added to this machine's modes.")).toBeVisible();
+  await expect(page.getByRole("status").filter({ hasText: /Added the 1(79|80)(\.\d+)?\s?Hz Y mode to Merlin test router/ })).toBeVisible();
+
+  await page.getByRole("link", { name: /Merlin test router: recordings/ }).click();
+  await page.getByRole("tab", { name: "Modes and ceilings" }).click();
+  await expect(page.getByRole("table", { name: /Modes of Merlin/ }).getByRole("row").filter({ hasText: "Fitted" })).toHaveCount(1);
 });
