@@ -33,7 +33,19 @@ export const FAKE_CUT = {
 
 /** Writes the fake microphone's WAV (16-bit PCM, mono) and returns its path. */
 export function writeFakeMicrophoneWav(path: string): string {
-  const { sampleRateHz, durationS, tones, noiseAmplitude } = FAKE_CUT;
+  mkdirSync(dirname(path), { recursive: true });
+  writeFileSync(path, toneWav(FAKE_CUT));
+  return path;
+}
+
+/** A mono 16-bit PCM WAV of summed sine tones and a quiet deterministic hiss. */
+export function toneWav(sound: {
+  sampleRateHz: number;
+  durationS: number;
+  tones: ReadonlyArray<{ hz: number; amplitude: number }>;
+  noiseAmplitude: number;
+}): Uint8Array {
+  const { sampleRateHz, durationS, tones, noiseAmplitude } = sound;
   const n = sampleRateHz * durationS;
   const samples = new Int16Array(n);
   let seed = 0x2f6a7c1d;
@@ -52,7 +64,5 @@ export function writeFakeMicrophoneWav(path: string): string {
   }
   const wav = new WaveFile();
   wav.fromScratch(1, sampleRateHz, "16", samples);
-  mkdirSync(dirname(path), { recursive: true });
-  writeFileSync(path, wav.toBuffer());
-  return path;
+  return wav.toBuffer();
 }

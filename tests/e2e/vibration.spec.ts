@@ -1,7 +1,7 @@
 import AxeBuilder from "@axe-core/playwright";
 import { expect as baseExpect, test, type Page } from "@playwright/test";
 import { fileURLToPath } from "node:url";
-import { FAKE_CUT, writeFakeMicrophoneWav } from "./fake-microphone";
+import { FAKE_CUT, toneWav, writeFakeMicrophoneWav } from "./fake-microphone";
 import { newAccount, signIn, signUp, unique } from "./support";
 
 // The analysis runs in a background job; on a busy runner it can take a while.
@@ -91,11 +91,13 @@ test("a tooling manager records a cut with the microphone, uploads it, and reads
 });
 
 /** Signs up a new shop (its owner) with one machine from the gantry-router defaults, created through the API the machine page uses. */
-async function newShopWithMachine(page: Page, name: string) {
+async function newShopWithMachine(page: Page, name: string, spindle: Record<string, unknown> = {}) {
   await signUp(page, newAccount());
   const me = (await (await page.request.get("/api/me")).json()) as { activeShopId: string };
   const defaults = (await (await page.request.get(`/api/shops/${me.activeShopId}/machines/defaults?kind=gantry_router`)).json()) as Record<string, unknown>;
-  const created = await page.request.post(`/api/shops/${me.activeShopId}/machines`, { data: { ...defaults, name } });
+  const created = await page.request.post(`/api/shops/${me.activeShopId}/machines`, {
+    data: { ...defaults, name, spindle: { ...(defaults.spindle as Record<string, unknown>), ...spindle } },
+  });
   expect(created.status()).toBe(201);
   await page.reload();
 }
@@ -196,4 +198,43 @@ test("a frequency response uploaded as CSV is fitted, and its mode is added to t
   await page.getByRole("link", { name: /Merlin test router: recordings/ }).click();
   await page.getByRole("tab", { name: "Modes and ceilings" }).click();
   await expect(page.getByRole("table", { name: /Modes of Merlin/ }).getByRole("row").filter({ hasText: "Fitted" })).toHaveCount(1);
+});
+
+test("a recording of the spindle running free sets the real speed of a dial setting", async ({ page }) => {
+  test.setTimeout(180_000);
+  await newShopWithMachine(page, "Osprey test router", {
+    dialSettings: [
+      { label: "1", rpm: 10_000, measured: false },
+      { label: "3", rpm: 18_000, measured: false },
+    ],
+  });
+  await openProfile(page, /^Osprey test router/);
+  await page.getByRole("tab", { name: "Recordings" }).click();
+  await page.getByRole("button", { name: "Upload a file" }).click();
+
+  // Dial 3 actually turns at 290 Hz = 17 400 rpm (an invented 3.3 % slip): the rotation and its
+  // 2nd and 3rd harmonics, as a spindle with a little unbalance sounds.
+  const wav = toneWav({
+    sampleRateHz: 16_000,
+    durationS: 3,
+    tones: [
+      { hz: 290, amplitude: 0.3 },
+      { hz: 580, amplitude: 0.12 },
+      { hz: 870, amplitude: 0.05 },
+    ],
+    noiseAmplitude: 0.01,
+  });
+  const sheet = page.getByRole("dialog", { name: "New recording" });
+  await sheet.getByLabel("File", { exact: true }).setInputFiles({ name: "osprey-dial-3.wav", mimeType: "audio/wav", buffer: Buffer.from(wav) });
+  await sheet.getByLabel("What was recorded").selectOption("spindle_free");
+  await sheet.getByLabel("Dial setting running").selectOption("3");
+  await sheet.getByRole("button", { name: "Upload and analyse" }).click();
+
+  await expect(page.getByText("Analysed", { exact: true })).toBeVisible({ timeout: 90_000 });
+  // 290 Hz × 60 = 17 400 rpm, within the analysis's frequency resolution.
+  // (accessible names fold the thin and narrow no-break spaces into plain spaces)
+  const apply = page.getByRole("button", { name: /^Use 17\s?(39\d|40\d)\s?rpm as the real speed of dial setting 3$/ });
+  await apply.click();
+  await expect(page.getByText(/Dial setting 3 now runs at 17\s?(39\d|40\d)\s?rpm on this machine/)).toBeVisible();
+  await expect(page.getByRole("status").filter({ hasText: /was 18\s?000\s?rpm/ })).toBeVisible();
 });
