@@ -215,8 +215,21 @@ export function refineMachine(m: { spindle: { minRpm: number; maxRpm: number } }
 export const machineBodySchema = z.object(machineFields).superRefine(refineMachine);
 export type MachineBody = z.infer<typeof machineBodySchema>;
 
+/** One position of the machine's measured stiffness map (from its dial-indicator readings). */
+export const machineStiffnessPointSchema = z.object({
+  xMm: z.number(),
+  yMm: z.number(),
+  direction: axisSchema,
+  /** force / deflection of the reading [N/mm] */
+  stiffnessNPerMm: z.number(),
+});
+export type MachineStiffnessPoint = z.infer<typeof machineStiffnessPointSchema>;
+
 export const machineSchema = z.object({
   ...machineBodySchema.shape,
+  /** The measured stiffness map (read-only: comes from the stiffness readings, ignored in bodies).
+   *  The planner interpolates it at the job's work position, or takes its worst case over a region. */
+  stiffnessPoints: z.array(machineStiffnessPointSchema).optional(),
   id: uuid,
   shopId: uuid,
   createdAt: z.string(),

@@ -70,6 +70,51 @@ describe("toRecommendInput", () => {
     expect(input.machine.spindle).toEqual({ minRpm: 8000, maxRpm: 24000, ratedPowerW: 1500 });
   });
 
+  it("passes the measured stiffness map (X and Y readings) and uses it at the work position or over a marked region", () => {
+    // Readings along the gantry: stiff at the ends, soft at mid-span (illustrative values); a Z push is not lateral.
+    const mapped: PlanningInput["machine"] = {
+      ...machine,
+      stiffnessPoints: [
+        { xMm: 0, yMm: 400, direction: "y", stiffnessNPerMm: 2400 },
+        { xMm: 600, yMm: 400, direction: "y", stiffnessNPerMm: 600 },
+        { xMm: 1200, yMm: 400, direction: "y", stiffnessNPerMm: 2400 },
+        { xMm: 600, yMm: 400, direction: "z", stiffnessNPerMm: 900 },
+      ],
+    };
+    const at = (x: number, region: PlanningInput["params"]["workRegion"] = null) =>
+      planRecipe({ ...base, machine: mapped, params: { ...params, workPositionXMm: x, workPositionYMm: 400, workRegion: region } });
+    const input = toRecommendInput({ ...base, machine: mapped });
+    expect(input.machine.stiffnessMap).toHaveLength(3);
+    expect(input.machine.stiffnessMap!.every((pt) => pt.direction === "y")).toBe(true);
+    expect(input.workRegion).toBeUndefined();
+    // Y comes from the map (compliance interpolated: hand calculation), X from the axis (no X readings).
+    const end = at(0);
+    const middle = at(600);
+    expect(end.machineStiffnessNPerMm).toBeCloseTo(Math.min(1500, 2400), 9);
+    expect(middle.machineStiffnessNPerMm).toBeCloseTo(600, 9);
+    expect(at(300).machineStiffnessNPerMm).toBeCloseTo(Math.min(1500, 1 / ((1 / 2400 + 1 / 600) / 2)), 9);
+    expect(middle.machineDeflectionMm).toBeGreaterThan(end.machineDeflectionMm);
+    // A region over the left half: its worst case is mid-span, whatever the work position.
+    const region = { xMinMm: 0, xMaxMm: 600, yMinMm: 300, yMaxMm: 500 };
+    expect(toRecommendInput({ ...base, machine: mapped, params: { ...params, workRegion: region } }).workRegion).toEqual(region);
+    const overRegion = at(0, region);
+    expect(overRegion.machineStiffnessNPerMm).toBeCloseTo(600, 9);
+    expect(overRegion.machineDeflectionMm).toBeCloseTo(middle.machineDeflectionMm, 12);
+  });
+
+  it("keeps the per-axis stiffness when the machine has no readings", () => {
+    const input = toRecommendInput({ ...base, machine: { ...machine, stiffnessPoints: [] } });
+    expect(input.machine.stiffnessMap).toBeUndefined();
+    expect(planRecipe(base).machineStiffnessNPerMm).toBeCloseTo(1200, 9);
+  });
+
+  it("refuses a work region whose ends are swapped, naming the field", () => {
+    const parsed = recipeParamsSchema.safeParse({ axialDepthMm: 3, radialDepthMm: 1.5, workRegion: { xMinMm: 500, xMaxMm: 100, yMinMm: 0, yMaxMm: 10 } });
+    expect(parsed.success).toBe(false);
+    expect(parsed.error!.issues.map((i) => i.path.join("."))).toEqual(["workRegion.xMaxMm"]);
+    expect(recipeParamsSchema.parse({ axialDepthMm: 3, radialDepthMm: 1.5 }).workRegion).toBeNull();
+  });
+
   it("takes stick-out and runout from the assembly and the middle of each chip-load range", () => {
     const input = toRecommendInput(base);
     expect(input.cutter).toMatchObject({ shape: "flat", diameterMm: 6, stickoutMm: 24, runoutTirMm: 0.01, helixAngleDeg: 30, maxRpm: 30000 });

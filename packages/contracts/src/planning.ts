@@ -21,6 +21,10 @@
  *    diameter the engine uses (ball and bull nose at shallow depth), so the engine starts from
  *    exactly that speed and still moves it off modes and below every ceiling.
  *  - Slot and ramp engage the full diameter and drill is axial: their stepover is ignored.
+ *  - Machine stiffness: the measured stiffness map (X and Y readings) when the machine has one,
+ *    which the engine interpolates at the work position, or whose worst case it takes over the
+ *    work region when the programmer marks one; per-axis static stiffness (X, Y) otherwise and for
+ *    a direction without readings.
  *  - Machine: per-axis static stiffness (X, Y), max feeds, backlash, modes (their notes become
  *    labels), avoided bands, mode margin (% → fraction), dial settings (measured rpm) and power
  *    curve are passed as they are.
@@ -47,7 +51,7 @@ import {
 
 /** Everything the engine needs for one cut, in contract shapes. */
 export interface PlanningInput {
-  machine: Pick<Machine, "name" | "spindle" | "axes" | "modes" | "deflectionCeilingMm" | "avoidBands" | "modeMarginPct">;
+  machine: Pick<Machine, "name" | "spindle" | "axes" | "modes" | "deflectionCeilingMm" | "avoidBands" | "modeMarginPct" | "stiffnessPoints">;
   assembly: Pick<Assembly, "stickoutMm" | "runoutMm">;
   cutter: Pick<
     Cutter,
@@ -117,6 +121,10 @@ export function toRecommendInput(p: PlanningInput): RecommendInput {
   const diameterMm = engineDiameterMm(p);
   const pointed = isPointed(cutter.shape);
   const bull = shape === "bull";
+  // The measured map across the bed (X and Y pushes: the engine's lateral stiffness).
+  const lateralPoints = (machine.stiffnessPoints ?? [])
+    .filter((pt) => pt.direction === "x" || pt.direction === "y")
+    .map((pt) => ({ xMm: pt.xMm, yMm: pt.yMm, direction: pt.direction, stiffnessNPerMm: pt.stiffnessNPerMm }));
 
   const input: RecommendInput = {
     cutter: {
@@ -151,6 +159,7 @@ export function toRecommendInput(p: PlanningInput): RecommendInput {
       },
       maxFeedMmPerMin: { x: machine.axes.x.maxFeedMmPerMin, y: machine.axes.y.maxFeedMmPerMin, z: machine.axes.z.maxFeedMmPerMin },
       stiffnessNPerMm: { x: machine.axes.x.stiffnessNPerMm, y: machine.axes.y.stiffnessNPerMm },
+      ...(lateralPoints.length > 0 ? { stiffnessMap: lateralPoints } : {}),
       modes: machine.modes.map((m) => ({
         direction: m.direction,
         frequencyHz: m.frequencyHz,
@@ -169,6 +178,7 @@ export function toRecommendInput(p: PlanningInput): RecommendInput {
       ...(FULL_WIDTH_OPERATIONS.has(operation) ? {} : { radialDepthMm: pointed ? Math.min(params.radialDepthMm, diameterMm) : params.radialDepthMm }),
     },
     workPosition: { xMm: params.workPositionXMm, yMm: params.workPositionYMm },
+    ...(params.workRegion ? { workRegion: { ...params.workRegion } } : {}),
     millingDirection: params.millingDirection,
   };
 

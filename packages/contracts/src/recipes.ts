@@ -14,12 +14,29 @@ export const recipeStatuses = ["draft", "trial", "proven", "approved", "retired"
 export const recipeStatusSchema = z.enum(recipeStatuses);
 export type RecipeStatus = z.infer<typeof recipeStatusSchema>;
 
+/** A rectangle of work positions [mm]. */
+export const workRegionSchema = z
+  .object({
+    xMinMm: num("region X from", 0, 20000),
+    xMaxMm: num("region X to", 0, 20000),
+    yMinMm: num("region Y from", 0, 20000),
+    yMaxMm: num("region Y to", 0, 20000),
+  })
+  .superRefine((r, ctx) => {
+    if (r.xMaxMm < r.xMinMm) ctx.addIssue({ code: "custom", path: ["xMaxMm"], message: "Region X to must not be less than X from" });
+    if (r.yMaxMm < r.yMinMm) ctx.addIssue({ code: "custom", path: ["yMaxMm"], message: "Region Y to must not be less than Y from" });
+  });
+export type WorkRegion = z.infer<typeof workRegionSchema>;
+
 /** What the programmer chooses; the engine computes the rest. */
 export const recipeParamsSchema = z.object({
   axialDepthMm: num("axial depth", 0.001, 200),
   radialDepthMm: num("radial depth", 0.001, 200),
   workPositionXMm: num("work position X", 0, 20000).default(0),
   workPositionYMm: num("work position Y", 0, 20000).default(0),
+  /** Where the cut moves over the table [mm]: when marked, the machine's stiffness is the worst
+   *  case of its measured map over this rectangle instead of the value at the work position. */
+  workRegion: workRegionSchema.nullable().default(null),
   millingDirection: z.enum(["climb", "conventional"]).default("climb"),
   /** Optional programmer choices; the engine still clamps them to every ceiling. */
   rpmOverride: num("spindle speed", 1, 200000).nullable().default(null),

@@ -30,6 +30,7 @@ export { seriesStiffness } from "./deflection/series-stiffness.js";
 export { stiffnessMapLookup, type Axis, type StiffnessPoint, type StiffnessLookup } from "./deflection/stiffness-map-lookup.js";
 export { stiffnessAt } from "./deflection/stiffness-at.js";
 export { stiffnessGrid, type StiffnessGrid } from "./deflection/stiffness-grid.js";
+export { stiffnessOverRegion, type RegionStiffness, type WorkRegion } from "./deflection/stiffness-over-region.js";
 export { radialEngagementChange } from "./deflection/radial-engagement-change.js";
 
 // dynamics/

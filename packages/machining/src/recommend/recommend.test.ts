@@ -200,6 +200,22 @@ describe("recommend — ceilings", () => {
     expect(warned(outside, "outside-stiffness-map")).toBe(true);
   });
 
+  it("a marked work region uses the worst case of the stiffness map over it, whatever the work position", () => {
+    const map = [
+      { xMm: 0, yMm: 0, stiffnessNPerMm: 4000, direction: "y" as const },
+      { xMm: 1000, yMm: 0, stiffnessNPerMm: 1000, direction: "y" as const },
+    ];
+    const machine: MachineInput = { ...stiff, stiffnessNPerMm: { x: 1e6, y: 1e6 }, stiffnessMap: map };
+    const region = { xMinMm: 0, xMaxMm: 500, yMinMm: 0, yMaxMm: 0 };
+    const overRegion = recommend({ ...base, machine, workPosition: { xMm: 0, yMm: 0 }, workRegion: region });
+    const atSoftest = recommend({ ...base, machine, workPosition: { xMm: 500, yMm: 0 } });
+    // Hand calculation: compliance midway is the mean of 1/4000 and 1/1000 mm/N.
+    expect(overRegion.machineStiffnessNPerMm).toBeCloseTo(1 / ((1 / 4000 + 1 / 1000) / 2), 9);
+    expect(overRegion.machineDeflectionMm).toBeCloseTo(atSoftest.machineDeflectionMm, 12);
+    expect(String(overRegion.explain.machineDeflectionMm?.inputs.find((i) => i.name === "from")?.value)).toMatch(/worst case of the stiffness map over X 0–500 mm/);
+    expect(() => recommend({ ...base, machine, workRegion: { xMinMm: 10, xMaxMm: 0, yMinMm: 0, yMaxMm: 0 } })).toThrow(/workRegion.xMaxMm/);
+  });
+
   it("stability: a deep slot on a flexible spindle is brought under 80 % of the ZOA boundary at the chosen speed", () => {
     const modes = [
       { direction: "x" as const, frequencyHz: 900, dampingRatio: 0.02, stiffnessNPerMm: 2000 },

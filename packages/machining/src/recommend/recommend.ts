@@ -1,4 +1,5 @@
 import { stiffnessMapLookup } from "../deflection/stiffness-map-lookup.js";
+import { stiffnessOverRegion } from "../deflection/stiffness-over-region.js";
 import { FLUTED_DIAMETER_RATIO, steppedToolDeflectionMm } from "../deflection/stepped-tool-deflection-mm.js";
 import { directionalFactors } from "../dynamics/directional-factors.js";
 import {
@@ -384,7 +385,25 @@ function buildContext(input: RecommendInput): Context {
   let ky = machine.stiffnessNPerMm.y;
   let kMachineNote = "per-axis stiffness";
   const map = machine.stiffnessMap ?? [];
-  if (map.length > 0) {
+  const region = input.workRegion;
+  if (map.length > 0 && region) {
+    const notes: string[] = [];
+    for (const ax of ["x", "y"] as const) {
+      if (!map.some((p) => p.direction === ax)) continue;
+      const worst = stiffnessOverRegion({ points: map, direction: ax, region });
+      if (ax === "x") kx = worst.worstNPerMm;
+      else ky = worst.worstNPerMm;
+      notes.push(`${ax.toUpperCase()} ${fmt(worst.worstNPerMm)} N/mm at (${fmt(worst.at.xMm)}, ${fmt(worst.at.yMm)}) mm`);
+      if (worst.outsideMeasuredArea) {
+        warnings.push({
+          id: "outside-stiffness-map",
+          severity: "caution",
+          message: `Part of the work region X ${fmt(region.xMinMm)}–${fmt(region.xMaxMm)} mm, Y ${fmt(region.yMinMm)}–${fmt(region.yMaxMm)} mm lies outside the area where ${ax.toUpperCase()} stiffness was measured; the nearest edge value is used there. Measure there for a real figure.`,
+        });
+      }
+    }
+    kMachineNote = `worst case of the stiffness map over X ${fmt(region.xMinMm)}–${fmt(region.xMaxMm)} mm, Y ${fmt(region.yMinMm)}–${fmt(region.yMaxMm)} mm: ${notes.join(", ")}`;
+  } else if (map.length > 0) {
     const pos = input.workPosition;
     if (!pos) {
       assumptions.push("no work position given: the stiffness map was not used, the per-axis stiffness was");
@@ -715,16 +734,10 @@ export function recommend(input: RecommendInput): Recommendation {
     const best: (Flags | null)[] = [null, null, null, null, null, null];
     for (const f of candidates) {
       const clear = f.resonance && f.band;
-      const tiers = [
-        allOk(f),
-        clear && f.stable && f.vc,
-        clear && f.vc,
-        clear && f.stable,
-        clear,
-        true,
-      ];
       for (let t = 0; t < 6; t++) {
-        if (!tiers[t]) continue;
+        const inTier =
+          t === 0 ? allOk(f) : t === 1 ? clear && f.stable && f.vc : t === 2 ? clear && f.vc : t === 3 ? clear && f.stable : t === 4 ? clear : true;
+        if (!inTier) continue;
         const b = best[t] ?? null;
         if (b === null) best[t] = f;
         else if (t === 2 || t === 4) {

@@ -1,4 +1,5 @@
 import type { StiffnessPoint } from "../deflection/stiffness-map-lookup.js";
+import type { WorkRegion } from "../deflection/stiffness-over-region.js";
 import type { MillingDirection } from "../forces/immersion-angles-rad.js";
 
 /** Cutter material: sets the cutting-speed range, default stiffness and edge hone. */
@@ -161,6 +162,9 @@ export interface RecommendInput {
   engagement: EngagementInput;
   /** Where on the table the cut happens [mm]; needed with a stiffness map */
   workPosition?: { xMm: number; yMm: number };
+  /** Where the cut may happen when it moves over the table [mm]: with a stiffness map, the
+   *  machine stiffness is the worst case over this rectangle (it takes precedence over workPosition) */
+  workRegion?: WorkRegion;
   /** Default "climb" */
   millingDirection?: MillingDirection;
   /** Axis the cut feeds along; "any" (default) checks both X and Y and keeps the worse */

@@ -246,6 +246,15 @@ export function validateRecommendInput(raw: unknown): asserts raw is RecommendIn
     const wp = raw.workPosition;
     if (!isObj(wp) || !finite(wp.xMm) || !finite(wp.yMm)) bad("workPosition", "must be { xMm, yMm } numbers");
   }
+  if (!optional(raw.workRegion)) {
+    const r = raw.workRegion;
+    if (!isObj(r) || !finite(r.xMinMm) || !finite(r.xMaxMm) || !finite(r.yMinMm) || !finite(r.yMaxMm)) {
+      bad("workRegion", "must be { xMinMm, xMaxMm, yMinMm, yMaxMm } numbers");
+    } else {
+      if (r.xMaxMm < r.xMinMm) bad("workRegion.xMaxMm", "must not be less than workRegion.xMinMm");
+      if (r.yMaxMm < r.yMinMm) bad("workRegion.yMaxMm", "must not be less than workRegion.yMinMm");
+    }
+  }
   if (!optional(raw.millingDirection) && raw.millingDirection !== "climb" && raw.millingDirection !== "conventional") {
     bad("millingDirection", "must be climb or conventional");
   }

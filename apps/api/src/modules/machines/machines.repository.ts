@@ -1,5 +1,5 @@
-import { Op, type WhereOptions } from "sequelize";
-import type { Machine, MachineBody, MachineListQuery, MachineMode } from "@ringdown/contracts";
+import { Op, QueryTypes, type WhereOptions } from "sequelize";
+import type { Axis, Machine, MachineBody, MachineListQuery, MachineMode, MachineStiffnessPoint } from "@ringdown/contracts";
 import { getSequelize, type Tx } from "../../db/sequelize.js";
 import { likePattern } from "../materials/materials.repository.js";
 import { MachineModeModel } from "./machine-mode.model.js";
@@ -14,7 +14,7 @@ const toMode = (m: MachineModeModel): MachineMode => ({
   note: m.note,
 });
 
-function toMachine(row: MachineModel, modes: MachineModeModel[]): Machine {
+function toMachine(row: MachineModel, modes: MachineModeModel[], stiffnessPoints: MachineStiffnessPoint[]): Machine {
   return {
     id: row.id,
     shopId: row.shopId,
@@ -23,6 +23,7 @@ function toMachine(row: MachineModel, modes: MachineModeModel[]): Machine {
     spindle: row.spindle,
     axes: row.axes,
     modes: modes.map(toMode),
+    stiffnessPoints,
     deflectionCeilingMm: row.deflectionCeilingMm,
     avoidBands: row.avoidBands,
     modeMarginPct: row.modeMarginPct,
@@ -57,6 +58,21 @@ async function modesOf(machineIds: string[], tx?: Tx): Promise<Map<string, Machi
   return byMachine;
 }
 
+/** Each machine's measured stiffness map: one point per dial-indicator reading (oldest first). */
+async function stiffnessPointsOf(machineIds: string[], tx?: Tx): Promise<Map<string, MachineStiffnessPoint[]>> {
+  const byMachine = new Map<string, MachineStiffnessPoint[]>(machineIds.map((id) => [id, []]));
+  if (machineIds.length === 0) return byMachine;
+  const rows = await getSequelize().query<{ machine_id: string; x_mm: number; y_mm: number; direction: Axis; stiffness_n_per_mm: number }>(
+    `SELECT machine_id, x_mm, y_mm, direction, stiffness_n_per_mm FROM stiffness_readings
+      WHERE machine_id IN (:machineIds) ORDER BY measured_at, created_at, id`,
+    { replacements: { machineIds }, type: QueryTypes.SELECT, transaction: tx ?? null },
+  );
+  for (const r of rows) {
+    byMachine.get(r.machine_id)?.push({ xMm: r.x_mm, yMm: r.y_mm, direction: r.direction, stiffnessNPerMm: r.stiffness_n_per_mm });
+  }
+  return byMachine;
+}
+
 export async function listMachines(shopId: string, query: MachineListQuery): Promise<{ items: Machine[]; total: number }> {
   const and: WhereOptions[] = [{ shopId }, { deletedAt: query.deleted ? { [Op.ne]: null } : null }];
   if (query.kind) and.push({ kind: query.kind });
@@ -70,8 +86,9 @@ export async function listMachines(shopId: string, query: MachineListQuery): Pro
     limit: query.pageSize,
     offset: (query.page - 1) * query.pageSize,
   });
-  const modes = await modesOf(rows.map((r) => r.id));
-  return { items: rows.map((r) => toMachine(r, modes.get(r.id) ?? [])), total: count };
+  const ids = rows.map((r) => r.id);
+  const [modes, points] = await Promise.all([modesOf(ids), stiffnessPointsOf(ids)]);
+  return { items: rows.map((r) => toMachine(r, modes.get(r.id) ?? [], points.get(r.id) ?? [])), total: count };
 }
 
 /** The shop's machine (in the bin or not) with its modes, or null. */
@@ -82,7 +99,9 @@ export async function findMachine(shopId: string, id: string, tx?: Tx, lock = fa
     ...(tx && lock ? { lock: tx.LOCK.UPDATE } : {}),
   });
   if (!row) return null;
-  return toMachine(row, (await modesOf([row.id], tx)).get(row.id) ?? []);
+  const modes = (await modesOf([row.id], tx)).get(row.id) ?? [];
+  const points = (await stiffnessPointsOf([row.id], tx)).get(row.id) ?? [];
+  return toMachine(row, modes, points);
 }
 
 /** Replaces the machine's whole mode set (the caller's transaction keeps it all-or-nothing). */

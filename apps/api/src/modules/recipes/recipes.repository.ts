@@ -15,6 +15,12 @@ import {
 import { getSequelize, type Tx } from "../../db/sequelize.js";
 import { RecipeModel, RecipeRevisionModel, RecipeTransitionModel } from "./recipe.model.js";
 
+/** Stored params in today's shape: revisions saved before the work region existed have none. */
+export function storedParams(raw: unknown): RecipeParams {
+  const params = raw as RecipeParams;
+  return { ...params, workRegion: params.workRegion ?? null };
+}
+
 type Row = Record<string, unknown>;
 
 async function select(sql: string, replacements: Record<string, unknown>, tx?: Tx | null): Promise<Row[]> {
@@ -44,7 +50,7 @@ function toRecipe(r: Row): Recipe {
     operation: r.operation,
     status: r.status,
     revision: r.revision,
-    params: r.params,
+    params: storedParams(r.params),
     result: r.result,
     notes: r.notes,
     needsRecheck: r.needs_recheck,
@@ -202,7 +208,7 @@ export async function lockRecipe(
     cutterId: row.cutterId,
     materialId: row.materialId,
     operation: row.operation,
-    params: row.params,
+    params: storedParams(row.params),
     result: row.result,
     notes: row.notes,
     status: row.status,
@@ -288,7 +294,7 @@ function toRevision(r: Row): RevisionRecord {
     assemblyId: String(r.assembly_id),
     materialId: String(r.material_id),
     operation: r.operation as Operation,
-    params: r.params as RecipeParams,
+    params: storedParams(r.params),
     result: r.result as RecipeResultSummary,
     notes: String(r.notes),
     changeNote: String(r.change_note),

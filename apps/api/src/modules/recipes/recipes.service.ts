@@ -205,12 +205,17 @@ const PARAM_LABELS: Record<keyof RecipeParams, { label: string; unit: string }> 
   radialDepthMm: { label: "radial depth", unit: "mm" },
   workPositionXMm: { label: "work position X", unit: "mm" },
   workPositionYMm: { label: "work position Y", unit: "mm" },
+  workRegion: { label: "work region", unit: "mm" },
   millingDirection: { label: "milling direction", unit: "" },
   rpmOverride: { label: "chosen spindle speed", unit: "rpm" },
   chipLoadOverrideMm: { label: "chosen chip load", unit: "mm" },
 };
 
 const show = (v: unknown, unit: string): string => (v === null || v === undefined ? "engine's choice" : unit ? `${String(v)} ${unit}` : String(v));
+
+/** A work region in words ("none" when the work position alone is used; older revisions have no field). */
+const showRegion = (r: RecipeParams["workRegion"] | undefined): string =>
+  r ? `X ${r.xMinMm}–${r.xMaxMm} mm, Y ${r.yMinMm}–${r.yMaxMm} mm` : "none (the work position)";
 
 /** What changed from one revision to the next, in words. */
 export function describeChanges(before: RevisionRecord, after: RevisionRecord): string[] {
@@ -220,6 +225,12 @@ export function describeChanges(before: RevisionRecord, after: RevisionRecord): 
   if (before.materialId !== after.materialId) out.push(`material ${before.materialName} → ${after.materialName}`);
   if (before.operation !== after.operation) out.push(`operation ${before.operation} → ${after.operation}`);
   for (const key of Object.keys(PARAM_LABELS) as Array<keyof RecipeParams>) {
+    if (key === "workRegion") {
+      const a = showRegion(before.params.workRegion);
+      const b = showRegion(after.params.workRegion);
+      if (a !== b) out.push(`work region ${a} → ${b}`);
+      continue;
+    }
     const a = before.params[key];
     const b = after.params[key];
     if (a !== b) out.push(`${PARAM_LABELS[key].label} ${show(a, PARAM_LABELS[key].unit)} → ${show(b, PARAM_LABELS[key].unit)}`);

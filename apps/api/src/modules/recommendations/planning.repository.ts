@@ -91,7 +91,7 @@ export function toAssembly(r: Row): Assembly {
   });
 }
 
-export function toMachine(r: Row, modes: Row[]): Machine {
+export function toMachine(r: Row, modes: Row[], stiffnessReadings?: Row[]): Machine {
   return machineSchema.parse({
     id: r.id,
     shopId: r.shop_id,
@@ -107,6 +107,16 @@ export function toMachine(r: Row, modes: Row[]): Machine {
       source: m.source,
       note: m.note,
     })),
+    ...(stiffnessReadings
+      ? {
+          stiffnessPoints: stiffnessReadings.map((p) => ({
+            xMm: p.x_mm,
+            yMm: p.y_mm,
+            direction: p.direction,
+            stiffnessNPerMm: p.stiffness_n_per_mm,
+          })),
+        }
+      : {}),
     deflectionCeilingMm: r.deflection_ceiling_mm,
     avoidBands: r.avoid_bands,
     modeMarginPct: r.mode_margin_pct,
@@ -144,7 +154,14 @@ export async function findAssemblyRecords(shopId: string, assemblyId: string, tx
     { shopId, machineId: m.id },
     tx,
   );
-  return { machine: toMachine(m, modes), assembly: toAssembly(row.a as Row), cutter: toCutter(row.c as Row) };
+  // The measured stiffness map: the engine takes it at the work position (or over the work region).
+  const readings = await select(
+    `SELECT x_mm, y_mm, direction, stiffness_n_per_mm FROM stiffness_readings
+      WHERE shop_id = :shopId AND machine_id = :machineId ORDER BY measured_at, created_at, id`,
+    { shopId, machineId: m.id },
+    tx,
+  );
+  return { machine: toMachine(m, modes, readings), assembly: toAssembly(row.a as Row), cutter: toCutter(row.c as Row) };
 }
 
 /** A material this shop may use: its own (not deleted) or a global one. */

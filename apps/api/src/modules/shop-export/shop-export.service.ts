@@ -80,7 +80,8 @@ function csv(header: string[], rows: string[][]): string {
 function recipesCsv(recipes: Recipe[], holders: Map<string, string>): string {
   const header = [
     "id", "name", "status", "revision", "machine", "cutter", "holder", "material", "operation",
-    "axial_depth_mm", "radial_depth_mm", "work_position_x_mm", "work_position_y_mm", "milling_direction",
+    "axial_depth_mm", "radial_depth_mm", "work_position_x_mm", "work_position_y_mm",
+    "work_region_x_from_mm", "work_region_x_to_mm", "work_region_y_from_mm", "work_region_y_to_mm", "milling_direction",
     "chosen_rpm", "chosen_chip_load_mm", "rpm", "feed_mm_per_min", "chip_load_mm", "removal_rate_mm3_per_min",
     "power_w", "deflection_mm", "binding_limit", "stable", "cut_logs", "author", "notes", "last_comment", "created_at", "updated_at", "deleted_at",
   ];
@@ -88,6 +89,7 @@ function recipesCsv(recipes: Recipe[], holders: Map<string, string>): string {
     r.id, textCell(r.name), r.status, String(r.revision), textCell(r.machineName), textCell(r.cutterName), textCell(holders.get(r.assemblyId)),
     textCell(r.materialName), r.operation,
     numberCell(r.params.axialDepthMm), numberCell(r.params.radialDepthMm), numberCell(r.params.workPositionXMm), numberCell(r.params.workPositionYMm),
+    numberCell(r.params.workRegion?.xMinMm), numberCell(r.params.workRegion?.xMaxMm), numberCell(r.params.workRegion?.yMinMm), numberCell(r.params.workRegion?.yMaxMm),
     r.params.millingDirection, numberCell(r.params.rpmOverride), numberCell(r.params.chipLoadOverrideMm),
     numberCell(r.result.rpm), numberCell(r.result.feedMmPerMin), numberCell(r.result.chipLoadMm), numberCell(r.result.materialRemovalRateMm3PerMin),
     numberCell(r.result.powerW), numberCell(r.result.totalDeflectionMm), textCell(r.result.bindingLimit), r.result.stable === null ? "not checked" : String(r.result.stable),

@@ -85,6 +85,49 @@ describe("stiffness readings", () => {
     expect((await team.owner.agent.delete(`${base}/${second.reading.id}`)).status).toBe(404);
   });
 
+  it("recipes take the stiffness at their work position from the readings, or the worst case over a marked region", async () => {
+    const machine = machineSchema.parse((await team.owner.agent.post(`${shopPath()}/machines`).send(machineBody())).body);
+    const cutter = (await team.owner.agent.post(`${shopPath()}/cutters`).send(cutterBody())).body as { id: string };
+    const assembly = (
+      await team.owner.agent.post(`${shopPath()}/assemblies`).send({ machineId: machine.id, cutterId: cutter.id, holder: "ER20", stickoutMm: 20, runoutMm: 0.01 })
+    ).body as { id: string };
+    const base = `${shopPath()}/machines/${machine.id}/stiffness-readings`;
+    // Y pushes along the gantry (hand calculation, k = F/δ): 500 N/mm at the ends, 125 N/mm at mid-span.
+    for (const [xMm, deflectionMm] of [[0, 0.1], [300, 0.4], [600, 0.1]] as const) {
+      expect((await team.owner.agent.post(base).send(reading({ xMm, yMm: 300, deflectionMm }))).status).toBe(201);
+    }
+    const got = machineSchema.parse((await team.operator.agent.get(`${shopPath()}/machines/${machine.id}`)).body);
+    expect(got.stiffnessPoints?.map((p) => [p.xMm, p.direction, Number(p.stiffnessNPerMm.toFixed(6))])).toEqual([
+      [0, "y", 500],
+      [300, "y", 125],
+      [600, "y", 500],
+    ]);
+    const materialId = await globalMaterialId("hdpe");
+    const plan = async (params: Record<string, unknown>) => {
+      const res = await team.programmer.agent
+        .post(`${shopPath()}/recommendations`)
+        .send({ assemblyId: assembly.id, materialId, operation: "profile", params: { axialDepthMm: 3, radialDepthMm: 1, ...params } });
+      expect(res.status, JSON.stringify(res.body)).toBe(200);
+      return res.body.recommendation as { machineStiffnessNPerMm: number; machineDeflectionMm: number; cuttingForceN: number };
+    };
+    // The engine takes the softer of X (400 N/mm, the machine's axis value) and the map's Y.
+    const atEnd = await plan({ workPositionXMm: 0, workPositionYMm: 300 });
+    const atMiddle = await plan({ workPositionXMm: 300, workPositionYMm: 300 });
+    expect(atEnd.machineStiffnessNPerMm).toBeCloseTo(400, 6);
+    expect(atMiddle.machineStiffnessNPerMm).toBeCloseTo(125, 6);
+    expect(atMiddle.machineDeflectionMm).toBeCloseTo(atMiddle.cuttingForceN / 125, 9);
+    // Region X 0–100 mm: compliance at x = 100 is 2/3 · 1/500 + 1/3 · 1/125 = 0.004 mm/N → 250 N/mm (hand calculation).
+    const nearEnd = await plan({ workPositionXMm: 0, workPositionYMm: 300, workRegion: { xMinMm: 0, xMaxMm: 100, yMinMm: 250, yMaxMm: 350 } });
+    expect(nearEnd.machineStiffnessNPerMm).toBeCloseTo(250, 6);
+    const spanning = await plan({ workPositionXMm: 0, workPositionYMm: 300, workRegion: { xMinMm: 0, xMaxMm: 600, yMinMm: 0, yMaxMm: 600 } });
+    expect(spanning.machineStiffnessNPerMm).toBeCloseTo(125, 6);
+    const swapped = await team.programmer.agent
+      .post(`${shopPath()}/recommendations`)
+      .send({ assemblyId: assembly.id, materialId, operation: "profile", params: { axialDepthMm: 3, radialDepthMm: 1, workRegion: { xMinMm: 100, xMaxMm: 0, yMinMm: 0, yMaxMm: 1 } } });
+    expect(swapped.status).toBe(400);
+    expect(Object.keys(apiErrorSchema.parse(swapped.body).error.fields ?? {})).toEqual(["params.workRegion.xMaxMm"]);
+  });
+
   it.each([
     [{ forceN: -5 }, "forceN", "Force must be more than 0 N: push with a known load (spring scale or weights)"],
     [{ forceN: 0 }, "forceN", "Force must be more than 0 N: push with a known load (spring scale or weights)"],

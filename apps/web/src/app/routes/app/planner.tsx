@@ -15,7 +15,7 @@ import { useDocumentTitle } from "@/lib/use-document-title";
 
 /**
  * Starting choices from the address (e.g. a recipe's "Open in planner"): ids, the operation and
- * lengths in mm (ap, ae, x, y, fz), rpm and the milling direction.
+ * lengths in mm (ap, ae, x, y, fz; a work region as rx0, rx1, ry0, ry1), rpm and the milling direction.
  */
 function initialFromSearch(search: URLSearchParams, system: "metric" | "imperial"): Partial<PlannerValues> {
   const initial: Partial<PlannerValues> = {};
@@ -28,7 +28,10 @@ function initialFromSearch(search: URLSearchParams, system: "metric" | "imperial
   id("materialId");
   const op = search.get("operation");
   if (op && (operations as readonly string[]).includes(op)) initial.operation = op as Operation;
-  const mm = (key: string, field: "axialDepth" | "radialDepth" | "workX" | "workY" | "chipLoadOverride") => {
+  const mm = (
+    key: string,
+    field: "axialDepth" | "radialDepth" | "workX" | "workY" | "regionXFrom" | "regionXTo" | "regionYFrom" | "regionYTo" | "chipLoadOverride",
+  ) => {
     const v = Number(search.get(key));
     if (search.get(key) !== null && Number.isFinite(v) && v >= 0) initial[field] = lengthInputText(v, system);
   };
@@ -37,6 +40,14 @@ function initialFromSearch(search: URLSearchParams, system: "metric" | "imperial
   mm("x", "workX");
   mm("y", "workY");
   mm("fz", "chipLoadOverride");
+  // A work region comes as all four edges or not at all.
+  if (["rx0", "rx1", "ry0", "ry1"].every((key) => search.get(key) !== null)) {
+    initial.useRegion = true;
+    mm("rx0", "regionXFrom");
+    mm("rx1", "regionXTo");
+    mm("ry0", "regionYFrom");
+    mm("ry1", "regionYTo");
+  }
   const rpm = Number(search.get("rpm"));
   if (search.get("rpm") !== null && Number.isFinite(rpm) && rpm > 0) initial.rpmOverride = String(Math.round(rpm));
   const dir = search.get("dir");

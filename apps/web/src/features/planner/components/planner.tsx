@@ -67,6 +67,11 @@ const EMPTY: PlannerValues = {
   radialDepth: "",
   workX: "",
   workY: "",
+  useRegion: false,
+  regionXFrom: "",
+  regionXTo: "",
+  regionYFrom: "",
+  regionYTo: "",
   millingDirection: "climb",
   rpmOverride: "",
   chipLoadOverride: "",
@@ -298,18 +303,40 @@ export function Planner({ shopId, role, system, initial, evidence }: PlannerProp
             </fieldset>
           </Section>
 
-          <Section
-            title="Work position on the bed"
-            description={
-              machine
-                ? `Travel ${lengthInputText(machine.axes.x.travelMm, system)} × ${lengthInputText(machine.axes.y.travelMm, system)} ${unit}; stiffness can change across the bed.`
-                : undefined
-            }
-          >
+          <Section title="Work position on the bed" description={machine ? workPositionNote(machine, system, unit) : undefined}>
             <div className="grid grid-cols-2 gap-3">
               <NumberField label="X" unit={unit} error={errors.workX} {...form.register("workX")} />
               <NumberField label="Y" unit={unit} error={errors.workY} {...form.register("workY")} />
             </div>
+            <label className="mt-3 flex cursor-pointer items-start gap-2 text-sm">
+              <input
+                type="checkbox"
+                className="mt-0.5 size-4 accent-brand"
+                {...form.register("useRegion", {
+                  onChange: (event: { target: { checked: boolean } }) => {
+                    // A first region: the whole table, to narrow down.
+                    if (!event.target.checked || !machine || form.getValues("regionXTo") !== "") return;
+                    form.setValue("regionXFrom", "0");
+                    form.setValue("regionXTo", lengthInputText(machine.axes.x.travelMm, system));
+                    form.setValue("regionYFrom", "0");
+                    form.setValue("regionYTo", lengthInputText(machine.axes.y.travelMm, system));
+                  },
+                })}
+              />
+              <span>
+                The cut moves across the bed: use the softest spot of a region
+                <span className="block text-xs text-muted">Deflection is then checked where the machine is weakest inside the region.</span>
+              </span>
+            </label>
+            {values.useRegion ? (
+              <fieldset className="mt-3 grid grid-cols-2 gap-3">
+                <legend className="sr-only">Region of the bed</legend>
+                <NumberField label="Region X from" unit={unit} error={errors.regionXFrom} {...form.register("regionXFrom")} />
+                <NumberField label="Region X to" unit={unit} error={errors.regionXTo} {...form.register("regionXTo")} />
+                <NumberField label="Region Y from" unit={unit} error={errors.regionYFrom} {...form.register("regionYFrom")} />
+                <NumberField label="Region Y to" unit={unit} error={errors.regionYTo} {...form.register("regionYTo")} />
+              </fieldset>
+            ) : null}
           </Section>
 
           <Section title="Overrides" description="Optional. The engine still holds them within every limit.">
@@ -440,6 +467,15 @@ function useLibraryDefaults(
     if (!keep("axialDepth", isFirst)) set("axialDepth", lengthInputText(Math.min(d, cutter.fluteLengthMm), system));
     if (!keep("radialDepth", isFirst)) set("radialDepth", lengthInputText(d / 4, system));
   }, [cutter?.id]);
+}
+
+/** What the work position changes on this machine: its measured stiffness map, or nothing yet. */
+function workPositionNote(machine: Machine, system: UnitSystem, unit: string): string {
+  const travel = `Travel ${lengthInputText(machine.axes.x.travelMm, system)} × ${lengthInputText(machine.axes.y.travelMm, system)} ${unit}.`;
+  const lateral = (machine.stiffnessPoints ?? []).filter((p) => p.direction !== "z").length;
+  return lateral > 0
+    ? `${travel} Stiffness is taken from ${lateral} dial-indicator reading${lateral === 1 ? "" : "s"} at this position.`
+    : `${travel} No stiffness readings on this machine yet: its single stiffness per axis is used wherever the cut is.`;
 }
 
 function Section({ title, description, children }: { title: string; description?: string | undefined; children: ReactNode }) {

@@ -10,6 +10,11 @@ const base: PlannerValues = {
   radialDepth: "1.5",
   workX: "420",
   workY: "300",
+  useRegion: false,
+  regionXFrom: "",
+  regionXTo: "",
+  regionYFrom: "",
+  regionYTo: "",
   millingDirection: "climb",
   rpmOverride: "",
   chipLoadOverride: "",
@@ -35,10 +40,34 @@ describe("planner values to recipe parameters", () => {
       radialDepthMm: 1.5,
       workPositionXMm: 420,
       workPositionYMm: 300,
+      workRegion: null,
       millingDirection: "climb",
       rpmOverride: null,
       chipLoadOverrideMm: null,
     });
+  });
+
+  it("reads a marked work region in the person's units and refuses one past the travel or with its ends swapped", () => {
+    const region = { ...base, workX: "10", workY: "5", useRegion: true, regionXFrom: "0", regionXTo: "10", regionYFrom: "2", regionYTo: "4" };
+    // 1 in = 25.4 mm (1959 international inch).
+    const { params } = parsePlannerValues(region, { system: "imperial", travelXMm: 1200, travelYMm: 800 });
+    expect(params!.workRegion!.xMinMm).toBe(0);
+    expect(params!.workRegion!.xMaxMm).toBeCloseTo(254, 12);
+    expect(params!.workRegion!.yMinMm).toBeCloseTo(50.8, 12);
+    expect(params!.workRegion!.yMaxMm).toBeCloseTo(101.6, 12);
+    const bad = parsePlannerValues({ ...region, regionXTo: "1300", regionYFrom: "500", regionYTo: "100", regionXFrom: "" }, { system: "metric", travelXMm: 1200, travelYMm: 800 });
+    expect(bad.params).toBeNull();
+    expect(bad.errors).toEqual({
+      regionXFrom: "Enter the region's first X",
+      regionXTo: "X is beyond the machine's travel (1\u2009200\u202Fmm)",
+      regionYTo: "The region's last Y must not be below its first Y",
+    });
+    // Unticked, the region's fields are not read.
+    const unticked = parsePlannerValues({ ...region, useRegion: false, regionXTo: "junk" }, { system: "metric" });
+    expect(unticked.errors).toEqual({});
+    expect(unticked.params!.workRegion).toBeNull();
+    // And back from saved parameters.
+    expect(valuesFromParams(params!, "metric")).toMatchObject({ useRegion: true, regionXFrom: "0", regionXTo: "254", regionYFrom: "50.8", regionYTo: "101.6" });
   });
 
   it("converts inches to mm by the exact factor (1 in = 25.4 mm, 1959 international inch)", () => {

@@ -16,6 +16,12 @@ export interface PlannerValues {
   radialDepth: string;
   workX: string;
   workY: string;
+  /** Take the worst stiffness over a rectangle of the bed instead of the value at the work position. */
+  useRegion: boolean;
+  regionXFrom: string;
+  regionXTo: string;
+  regionYFrom: string;
+  regionYTo: string;
   millingDirection: "climb" | "conventional";
   /** Optional: empty means "let the engine choose". */
   rpmOverride: string;
@@ -46,21 +52,21 @@ export function lengthUnit(system: UnitSystem): "mm" | "in" {
 }
 
 /** The length fields of the form (typed in the display length unit). */
-export const LENGTH_FIELDS = ["axialDepth", "radialDepth", "workX", "workY", "chipLoadOverride"] as const;
+export const LENGTH_FIELDS = ["axialDepth", "radialDepth", "workX", "workY", "regionXFrom", "regionXTo", "regionYFrom", "regionYTo", "chipLoadOverride"] as const;
 
 /**
  * Rewrites typed lengths from one unit system into another, so switching the preference keeps
  * the same cut. Fields that are empty or not numbers are left as typed.
  */
 export function convertTypedLengths(
-  values: Pick<PlannerValues, (typeof LENGTH_FIELDS)[number]>,
+  values: Partial<Pick<PlannerValues, (typeof LENGTH_FIELDS)[number]>>,
   from: UnitSystem,
   to: UnitSystem,
 ): Partial<PlannerValues> {
   const out: Partial<PlannerValues> = {};
   if (from === to) return out;
   for (const field of LENGTH_FIELDS) {
-    const n = readNumber(values[field]);
+    const n = readNumber(values[field] ?? "");
     if (n !== null) out[field] = lengthInputText(fromDisplayLength(n, from), to);
   }
   return out;
@@ -116,7 +122,7 @@ export function parsePlannerValues(values: PlannerValues, ctx: ParseContext): Pa
   const { system } = ctx;
   const errors: PlannerErrors = {};
 
-  const length = (field: PlannerField, label: string, min: number, max: number, required: boolean): number | null => {
+  const length = (field: (typeof LENGTH_FIELDS)[number], label: string, min: number, max: number, required: boolean): number | null => {
     const text = values[field];
     if (text.trim() === "") {
       if (required) errors[field] = `Enter the ${label}`;
@@ -148,6 +154,23 @@ export function parsePlannerValues(values: PlannerValues, ctx: ParseContext): Pa
   if (ctx.travelYMm !== undefined && errors.workY?.includes("at most")) errors.workY = `Y is beyond the machine's travel (${limitText(ctx.travelYMm, system)})`;
   const fz = length("chipLoadOverride", "chip load", 0.0005, 2, false);
 
+  // The region where the cut moves: each edge on the table, and each "to" not before its "from".
+  let region: RecipeParams["workRegion"] = null;
+  if (values.useRegion) {
+    const edge = (field: "regionXFrom" | "regionXTo" | "regionYFrom" | "regionYTo", label: string, travel: number | undefined, axis: "X" | "Y") => {
+      const v = length(field, label, 0, travel ?? 20000, true);
+      if (travel !== undefined && errors[field]?.includes("at most")) errors[field] = `${axis} is beyond the machine's travel (${limitText(travel, system)})`;
+      return v;
+    };
+    const x0 = edge("regionXFrom", "region's first X", ctx.travelXMm, "X");
+    const x1 = edge("regionXTo", "region's last X", ctx.travelXMm, "X");
+    const y0 = edge("regionYFrom", "region's first Y", ctx.travelYMm, "Y");
+    const y1 = edge("regionYTo", "region's last Y", ctx.travelYMm, "Y");
+    if (x0 !== null && x1 !== null && x1 < x0) errors.regionXTo = "The region's last X must not be below its first X";
+    if (y0 !== null && y1 !== null && y1 < y0) errors.regionYTo = "The region's last Y must not be below its first Y";
+    if (x0 !== null && x1 !== null && y0 !== null && y1 !== null) region = { xMinMm: x0, xMaxMm: x1, yMinMm: y0, yMaxMm: y1 };
+  }
+
   let rpm: number | null = null;
   if (values.rpmOverride.trim() !== "") {
     const n = readNumber(values.rpmOverride);
@@ -164,6 +187,7 @@ export function parsePlannerValues(values: PlannerValues, ctx: ParseContext): Pa
     radialDepthMm: ae ?? ap,
     workPositionXMm: x,
     workPositionYMm: y,
+    workRegion: region,
     millingDirection: values.millingDirection,
     rpmOverride: rpm,
     chipLoadOverrideMm: fz,
@@ -178,13 +202,30 @@ export function parsePlannerValues(values: PlannerValues, ctx: ParseContext): Pa
 /** Typed values for given parameters (e.g. when opening a saved recipe in the planner). */
 export function valuesFromParams(params: RecipeParams, system: UnitSystem): Pick<
   PlannerValues,
-  "axialDepth" | "radialDepth" | "workX" | "workY" | "millingDirection" | "rpmOverride" | "chipLoadOverride"
+  | "axialDepth"
+  | "radialDepth"
+  | "workX"
+  | "workY"
+  | "useRegion"
+  | "regionXFrom"
+  | "regionXTo"
+  | "regionYFrom"
+  | "regionYTo"
+  | "millingDirection"
+  | "rpmOverride"
+  | "chipLoadOverride"
 > {
+  const region = params.workRegion ?? null;
   return {
     axialDepth: lengthInputText(params.axialDepthMm, system),
     radialDepth: lengthInputText(params.radialDepthMm, system),
     workX: lengthInputText(params.workPositionXMm, system),
     workY: lengthInputText(params.workPositionYMm, system),
+    useRegion: region !== null,
+    regionXFrom: region ? lengthInputText(region.xMinMm, system) : "",
+    regionXTo: region ? lengthInputText(region.xMaxMm, system) : "",
+    regionYFrom: region ? lengthInputText(region.yMinMm, system) : "",
+    regionYTo: region ? lengthInputText(region.yMaxMm, system) : "",
     millingDirection: params.millingDirection,
     rpmOverride: params.rpmOverride === null ? "" : String(Math.round(params.rpmOverride)),
     chipLoadOverride: params.chipLoadOverrideMm === null ? "" : lengthInputText(params.chipLoadOverrideMm, system),

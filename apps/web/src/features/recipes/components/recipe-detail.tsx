@@ -64,6 +64,12 @@ export function plannerHref(recipe: Recipe): string {
   });
   if (p.rpmOverride !== null) q.set("rpm", String(p.rpmOverride));
   if (p.chipLoadOverrideMm !== null) q.set("fz", String(p.chipLoadOverrideMm));
+  if (p.workRegion) {
+    q.set("rx0", String(p.workRegion.xMinMm));
+    q.set("rx1", String(p.workRegion.xMaxMm));
+    q.set("ry0", String(p.workRegion.yMinMm));
+    q.set("ry1", String(p.workRegion.yMaxMm));
+  }
   return `/planner?${q.toString()}`;
 }
 

@@ -86,6 +86,16 @@ export function RecipeSetup({ recipe, system, className, extra }: { recipe: Reci
           <Num value={p.workPositionYMm} measure={measures.length} system={system} />
         </span>
       </Row>
+      {p.workRegion && (
+        <Row label="Stiffness taken over">
+          <span className="tabular">
+            X <Num value={p.workRegion.xMinMm} measure={measures.length} system={system} />–
+            <Num value={p.workRegion.xMaxMm} measure={measures.length} system={system} />, Y{" "}
+            <Num value={p.workRegion.yMinMm} measure={measures.length} system={system} />–
+            <Num value={p.workRegion.yMaxMm} measure={measures.length} system={system} /> (softest spot)
+          </span>
+        </Row>
+      )}
       {p.rpmOverride !== null && (
         <Row label="Speed asked for">
           <Num value={p.rpmOverride} measure={measures.rpm} system={system} />

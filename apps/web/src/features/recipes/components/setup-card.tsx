@@ -107,6 +107,14 @@ export function SetupCard({
                 X <MeasureValue value={p.workPositionXMm} measure={measures.length} system={system} />, Y{" "}
                 <MeasureValue value={p.workPositionYMm} measure={measures.length} system={system} />
               </Item>
+              {p.workRegion && (
+                <Item label="Checked over">
+                  X <MeasureValue value={p.workRegion.xMinMm} measure={measures.length} system={system} />–
+                  <MeasureValue value={p.workRegion.xMaxMm} measure={measures.length} system={system} />, Y{" "}
+                  <MeasureValue value={p.workRegion.yMinMm} measure={measures.length} system={system} />–
+                  <MeasureValue value={p.workRegion.yMaxMm} measure={measures.length} system={system} />
+                </Item>
+              )}
             </dl>
           </section>
 

@@ -82,6 +82,7 @@ export function StabilitySection({ shopId, machine, system }: { shopId: string; 
           radialDepthMm: ae,
           workPositionXMm: machine.axes.x.travelMm / 2,
           workPositionYMm: machine.axes.y.travelMm / 2,
+          workRegion: null,
           millingDirection: "climb",
           rpmOverride: null,
           chipLoadOverrideMm: null,
