@@ -10,8 +10,9 @@ const steps: Array<{ area: string; run: () => Promise<number> }> = [
   { area: "people and shops", run: seedPeopleAndShops },
   { area: "team plans", run: () => seedTeamPlans() },
   { area: "library (machines, cutters, assemblies)", run: seedLibrary },
-  { area: "recipes (revisions, status history, cut logs)", run: () => seedRecipes() },
+  // Before the recipes: recipes take the stiffness map at their work position.
   { area: "vibration profiles (stiffness and backlash readings, analysed recordings)", run: () => seedVibration() },
+  { area: "recipes (revisions, status history, cut logs)", run: () => seedRecipes() },
 ];
 
 // Any constant shared by every process; serialises concurrent seeding of one database.

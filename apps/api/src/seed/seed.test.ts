@@ -32,8 +32,8 @@ describe("demo seed", () => {
       "demo seed: people and shops — already present",
       "demo seed: team plans — already present",
       "demo seed: library (machines, cutters, assemblies) — already present",
-      "demo seed: recipes (revisions, status history, cut logs) — already present",
       "demo seed: vibration profiles (stiffness and backlash readings, analysed recordings) — already present",
+      "demo seed: recipes (revisions, status history, cut logs) — already present",
     ]);
   });
 
