@@ -1,5 +1,8 @@
 /**
  * Engine benchmarks: prints figures, asserts nothing. Run with `npm run bench -w @ringdown/machining`.
+ * The script builds the package first and imports "@ringdown/machining" without the "source"
+ * condition, so it times dist/ (tsc output), not tsx's on-the-fly transform of src/ (which wraps
+ * every function in a naming helper and so measures slower than anything that ships).
  * Each figure is reported as wall time and as CPU time of this process (the machine may be shared).
  */
 import FFT from "fft.js";
@@ -46,6 +49,7 @@ function median(xs: number[]): number {
 const fmt = (v: number, d = 1): string => v.toLocaleString("en-US", { maximumFractionDigits: d, minimumFractionDigits: d });
 
 console.log(`Ringdown machining engine benchmarks — node ${process.version}, ${cpus().length} cores, load average ${loadavg().map((v) => v.toFixed(2)).join(" / ")}`);
+console.log("(the engine as built by `npm run build`, the code the API and the browser run: dist/, not the TypeScript sources)");
 console.log("(medians of repeated runs, and the least-disturbed run: on a shared machine the best run is closest to one free core;");
 console.log(" CPU time is this process's user+system time)");
 {
