@@ -16,9 +16,8 @@ set -euo pipefail
 
 SCRIPT_DIR="$(cd "$(dirname "${BASH_SOURCE[0]}")" && pwd)"
 PROJECT_DIR="$(cd "$SCRIPT_DIR/.." && pwd)"
-
-say() { printf 'pg.sh: %s\n' "$*" >&2; }
-die() { printf 'pg.sh: error: %s\n' "$*" >&2; exit 1; }
+SCRIPT_NAME="pg.sh"
+source "$SCRIPT_DIR/lib.sh"
 
 usage() {
   cat >&2 <<'EOF'
@@ -35,27 +34,12 @@ EOF
 
 # --- settings ---------------------------------------------------------------------------------
 
-# Read RINGDOWN_PG_* from .env without executing it and without overriding the environment.
-load_dotenv() {
-  local file="$PROJECT_DIR/.env" line key value
-  [[ -f "$file" ]] || return 0
-  while IFS= read -r line || [[ -n "$line" ]]; do
-    [[ "$line" =~ ^[[:space:]]*(export[[:space:]]+)?(RINGDOWN_PG_[A-Z_]+)[[:space:]]*=[[:space:]]*(.*)$ ]] || continue
-    key="${BASH_REMATCH[2]}"
-    value="${BASH_REMATCH[3]}"
-    value="${value%%[[:space:]]#*}"          # trailing comment
-    value="${value%"${value##*[![:space:]]}"}" # trailing spaces
-    value="${value#\"}"; value="${value%\"}"; value="${value#\'}"; value="${value%\'}"
-    if [[ -z "${!key+x}" ]]; then export "$key=$value"; fi
-  done <"$file"
-}
-
 [[ $# -ge 2 ]] || usage
 COMMAND="$1"
 CLUSTER="$2"
 shift 2
 
-load_dotenv
+load_dotenv '^RINGDOWN_PG_[A-Z_]+$'
 
 case "$CLUSTER" in
   dev) PORT="${RINGDOWN_PG_DEV_PORT:-5433}" ;;
@@ -88,11 +72,7 @@ SOCKET_DIR="$(socket_dir)"
 
 # --- binaries ---------------------------------------------------------------------------------
 
-find_bin_dir() {
-  local dir
-  dir="$(ls -d /usr/lib/postgresql/*/bin 2>/dev/null | sort -V | tail -n 1 || true)"
-  if [[ -n "$dir" && -x "$dir/initdb" && -x "$dir/pg_ctl" ]]; then printf '%s' "$dir"; fi
-}
+find_bin_dir() { pg_bin_dir initdb pg_ctl; }
 
 ensure_binaries() {
   BIN_DIR="$(find_bin_dir)"
