@@ -20,6 +20,7 @@ import { registerCutLogRoutes } from "./modules/cut-logs/cut-logs.router.js";
 import { registerLadderRoutes } from "./modules/ladders/ladders.router.js";
 import { registerShopExportRoutes } from "./modules/shop-export/shop-export.router.js";
 import { registerVibrationRoutes } from "./modules/vibration/vibration.routes.js";
+import { registerAuditRoutes } from "./modules/audit/audit.router.js";
 import { LocalDirectoryStorage } from "./storage/local-directory-storage.js";
 
 export function createShopScopedRouter(config: AppConfig = readConfig()): Router {
@@ -38,6 +39,7 @@ export function createShopScopedRouter(config: AppConfig = readConfig()): Router
   registerLadderRoutes(router);
   registerShopExportRoutes(router);
   registerVibrationRoutes(router, { storageDir: config.storageDir });
+  registerAuditRoutes(router);
   return router;
 }
 

@@ -10,3 +10,4 @@ export * from "./planning.js";
 export * from "./team.js";
 export * from "./billing.js";
 export * from "./vibration.js";
+export * from "./audit.js";
