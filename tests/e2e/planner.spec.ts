@@ -116,3 +116,47 @@ test("the planner and the recipe pages pass axe's WCAG A/AA rules", async ({ pag
   await expect(page.getByRole("table", { name: "Recipes" }).getByRole("link", { name })).toBeVisible();
   expect(await violations(page, "main")).toEqual([]);
 });
+
+test("the machine's stiffness follows the work position, or the softest spot of a marked region", async ({ page }) => {
+  test.setTimeout(180_000);
+  await page.goto("/sign-in");
+  await signIn(page, programmer.email, programmer.password);
+  await expect(page.getByRole("heading", { level: 1, name: "Planner" })).toBeVisible();
+  await chooseDemoRouter(page);
+  const readout = page.getByRole("region", { name: "Recipe read-out" });
+  // The demo router carries 18 lateral dial-indicator readings (9 positions × X and Y).
+  await expect(page.getByText("Stiffness is taken from 18 dial-indicator readings at this position.")).toBeVisible();
+
+  // Near a corner of the bed, where the demo router was measured stiffest.
+  await page.getByLabel("X (mm)", { exact: true }).fill("100");
+  await page.getByLabel("Y (mm)", { exact: true }).fill("100");
+  const why = readout.getByRole("button", { name: "Machine: why?" });
+  await why.focus();
+  await expect(page.getByRole("tooltip")).toContainText("stiffness map at (100, 100) mm");
+  const atCorner = Number((await why.innerText()).replace(/[^\d.]/g, ""));
+  await page.keyboard.press("Escape");
+
+  // The cut moves over the whole bed: the region starts as the whole table and the softest spot rules.
+  await page.getByLabel(/use the softest spot of a region/).check();
+  await expect(page.getByLabel("Region X to (mm)")).toHaveValue("2500");
+  await expect(page.getByLabel("Region Y to (mm)")).toHaveValue("1250");
+  await why.focus();
+  await expect(page.getByRole("tooltip")).toContainText("worst case of the stiffness map over X 0–2,500 mm, Y 0–1,250 mm");
+  const overBed = Number((await why.innerText()).replace(/[^\d.]/g, ""));
+  await page.keyboard.press("Escape");
+  expect(overBed).toBeGreaterThan(atCorner);
+
+  // A region whose ends are swapped is refused beside its field.
+  await page.getByLabel("Region Y to (mm)").fill("50");
+  await page.getByLabel("Region Y from (mm)").fill("200");
+  await expect(page.getByText("The region's last Y must not be below its first Y")).toBeVisible();
+  await page.getByLabel("Region Y from (mm)").fill("0");
+  await page.getByLabel("Region Y to (mm)").fill("1250");
+
+  const name = `Whole-bed profile ${unique()}`;
+  await page.getByRole("button", { name: "Save as recipe…" }).click();
+  await page.getByRole("dialog", { name: "Save as recipe" }).getByLabel("Recipe name").fill(name);
+  await page.getByRole("button", { name: "Save recipe" }).click();
+  await expect(page.getByRole("heading", { level: 1, name })).toBeVisible();
+  await expect(page.getByText("Stiffness taken over")).toBeVisible();
+});
