@@ -112,6 +112,8 @@ export async function restoreMachine(shopId: string, id: string): Promise<Machin
     const current = await findMachine(shopId, id, tx, true);
     if (!current) throw AppError.notFound("Machine not found.");
     if (!current.deletedAt) return current;
+    // A restored machine counts against the plan like a new one.
+    await assertCanAddMachine(shopId, tx);
     await updateMachine(shopId, id, { deletedAt: null }, tx);
     const restored = await findMachine(shopId, id, tx);
     if (!restored) throw AppError.notFound("Machine not found.");

@@ -258,4 +258,16 @@ describe("POST /machines on the free plan", () => {
     const list = await owner.agent.get(`/api/shops/${owner.shopId}/machines`);
     expect(list.body.total).toBe(1);
   });
+
+  it("counts a restored machine against the plan like a new one", async () => {
+    const owner = await createPerson(app, "free-plan-restore", "Free plan restore shop");
+    const first = await owner.agent.post(`/api/shops/${owner.shopId}/machines`).send(machineBody());
+    expect((await owner.agent.delete(`/api/shops/${owner.shopId}/machines/${first.body.id}`)).status).toBe(204);
+    expect((await owner.agent.post(`/api/shops/${owner.shopId}/machines`).send(machineBody({ name: "Replacement" }))).status).toBe(201);
+    const restore = await owner.agent.post(`/api/shops/${owner.shopId}/machines/${first.body.id}/restore`);
+    expect(restore.status).toBe(409);
+    expect(restore.body.error.message).toMatch(/free plan includes 1 machine/i);
+    const list = await owner.agent.get(`/api/shops/${owner.shopId}/machines`);
+    expect(list.body.total).toBe(1);
+  });
 });
