@@ -4,6 +4,7 @@ import type { AppConfig } from "../../config/env.js";
 import { createLimiter } from "../../http/rate-limit.js";
 import { inputOf, validate } from "../../http/validate.js";
 import { getMe } from "../me/me.service.js";
+import { auditIp } from "../audit/audit-actor.js";
 import { logIn, logOut, signUp } from "./auth.service.js";
 import { clearSessionCookie, readSessionCookie, setSessionCookie } from "./session-cookie.js";
 import { signSessionToken, verifySessionToken, type SessionClaims } from "./session-token.js";
@@ -46,9 +47,9 @@ export function createAuthRouter(config: AppConfig, options: AuthRouterOptions =
     prefix,
   );
 
-  router.post("/signup", signupPerIp, validate(signupInput), async (_req, res) => {
+  router.post("/signup", signupPerIp, validate(signupInput), async (req, res) => {
     const { body } = inputOf(res, signupInput);
-    const user = await signUp(body);
+    const user = await signUp(body, auditIp(req.ip));
     setSessionCookie(res, config, signSessionToken(user, config.jwtSecret, config.sessionTtlHours));
     res.status(201).json(await getMe(user.id));
   });

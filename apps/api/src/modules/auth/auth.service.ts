@@ -3,6 +3,7 @@ import { inTransaction } from "../../db/sequelize.js";
 import { AppError } from "../../http/app-error.js";
 import type { SessionUser } from "../../http/locals.js";
 import { createShopWithOwner } from "../shops/shops.repository.js";
+import { recordAuditEvent } from "../audit/audit.service.js";
 import {
   createUser,
   findCredentialsByEmail,
@@ -17,7 +18,8 @@ import type { SessionClaims } from "./session-token.js";
 const EMAIL_TAKEN = "An account with this e-mail address already exists. Sign in instead.";
 
 /** Creates the user, their first shop (they own it) and makes it their active shop. */
-export async function signUp(body: SignupBody): Promise<{ id: string; sessionVersion: number }> {
+/** A new account with its own new shop; `ip` is where the request came from (for the shop's audit log). */
+export async function signUp(body: SignupBody, ip: string | null = null): Promise<{ id: string; sessionVersion: number }> {
   // Hash before the transaction: it takes a few hundred milliseconds by design.
   const passwordHash = await hashPassword(body.password);
   return inTransaction(async (tx) => {
@@ -27,6 +29,12 @@ export async function signUp(body: SignupBody): Promise<{ id: string; sessionVer
     const user = await createUser({ email: body.email, name: body.name, passwordHash }, tx);
     const shop = await createShopWithOwner({ name: body.shopName, ownerId: user.id }, tx);
     await updateUser(user.id, { activeShopId: shop.id }, tx);
+    await recordAuditEvent(tx, {
+      shopId: shop.id,
+      actor: { userId: user.id, name: user.name, ip },
+      action: "shop.created",
+      subject: { type: "shop", id: shop.id, label: shop.name },
+    });
     return { id: user.id, sessionVersion: user.sessionVersion };
   });
 }

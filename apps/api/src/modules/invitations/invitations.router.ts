@@ -15,6 +15,7 @@ import { signSessionToken } from "../auth/session-token.js";
 import { createMailer } from "../mail/mailer.js";
 import { getMe } from "../me/me.service.js";
 import { requireShopRole } from "../shops/require-shop-role.js";
+import { auditIp, requestActor } from "../audit/audit-actor.js";
 import {
   acceptInvitation,
   invite,
@@ -51,21 +52,21 @@ export function registerInvitationRoutes(router: Router, config: AppConfig, opti
     res.json({ items: await listInvitations(currentShop(res).shop.id) });
   });
 
-  router.post("/invitations", owner, validate(createInput), perShop, async (_req, res) => {
+  router.post("/invitations", owner, validate(createInput), perShop, async (req, res) => {
     const { body } = inputOf(res, createInput);
     const user = currentUser(res);
-    res.status(201).json(await invite(currentShop(res).shop.id, { id: user.id, name: user.name }, body, deps));
+    res.status(201).json(await invite(currentShop(res).shop.id, { id: user.id, name: user.name, ip: auditIp(req.ip) }, body, deps));
   });
 
-  router.post("/invitations/:invitationId/resend", owner, validate(idInput), perShop, async (_req, res) => {
+  router.post("/invitations/:invitationId/resend", owner, validate(idInput), perShop, async (req, res) => {
     const { params } = inputOf(res, idInput);
     const user = currentUser(res);
-    res.status(201).json(await resendInvitation(currentShop(res).shop.id, params.invitationId, { id: user.id, name: user.name }, deps));
+    res.status(201).json(await resendInvitation(currentShop(res).shop.id, params.invitationId, { id: user.id, name: user.name, ip: auditIp(req.ip) }, deps));
   });
 
   router.delete("/invitations/:invitationId", owner, validate(idInput), async (_req, res) => {
     const { params } = inputOf(res, idInput);
-    await withdrawInvitation(currentShop(res).shop.id, params.invitationId);
+    await withdrawInvitation(currentShop(res).shop.id, params.invitationId, requestActor(res));
     res.status(204).end();
   });
 }
@@ -86,7 +87,7 @@ export function createPublicInvitationRouter(config: AppConfig, options: Invitat
   router.post("/:token", acceptPerIp, validate(acceptInput), async (req, res) => {
     const { params, body } = inputOf(res, acceptInput);
     const signedIn = await optionalSessionUser(req, config);
-    const accepted = await acceptInvitation(params.token, body, signedIn);
+    const accepted = await acceptInvitation(params.token, body, signedIn, auditIp(req.ip));
     if (accepted.created) {
       setSessionCookie(res, config, signSessionToken({ id: accepted.userId, sessionVersion: accepted.sessionVersion }, config.jwtSecret, config.sessionTtlHours));
     }

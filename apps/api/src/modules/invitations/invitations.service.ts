@@ -15,6 +15,7 @@ import { hashPassword } from "../auth/password.js";
 import { assertSeatAvailable } from "../billing/billing.service.js";
 import { lockShop } from "../billing/billing.repository.js";
 import type { Mailer } from "../mail/mailer.js";
+import { recordAuditEvent, type AuditActor } from "../audit/audit.service.js";
 import { invitationMail } from "../mail/templates.js";
 import { addMember, findMembership } from "../shops/shops.repository.js";
 import { createUser, findUserIdByEmail, updateUser } from "../users/users.repository.js";
@@ -53,7 +54,7 @@ export async function listInvitations(shopId: string): Promise<Invitation[]> {
  */
 export async function invite(
   shopId: string,
-  inviter: { id: string; name: string },
+  inviter: { id: string; name: string; ip: string | null },
   body: CreateInvitationBody,
   deps: { config: AppConfig; mailer: Mailer },
 ): Promise<Invitation> {
@@ -73,6 +74,13 @@ export async function invite(
     const id = await insertInvitation({ shopId, email: body.email, role: body.role, tokenHash: hash, invitedBy: inviter.id, expiresAt }, tx);
     const created = await findOpenInvitation(shopId, { id }, tx);
     if (!created) throw new Error("invitation vanished inside its own transaction");
+    await recordAuditEvent(tx, {
+      shopId,
+      actor: { userId: inviter.id, name: inviter.name, ip: inviter.ip },
+      action: "invitation.sent",
+      subject: { type: "invitation", id, label: body.email },
+      detail: { role: body.role, replacedInvitationId: previous?.id },
+    });
     await deps.mailer.send(
       invitationMail({
         to: body.email,
@@ -91,7 +99,7 @@ export async function invite(
 export async function resendInvitation(
   shopId: string,
   invitationId: string,
-  inviter: { id: string; name: string },
+  inviter: { id: string; name: string; ip: string | null },
   deps: { config: AppConfig; mailer: Mailer },
 ): Promise<Invitation> {
   const open = await findOpenInvitation(shopId, { id: invitationId });
@@ -99,8 +107,18 @@ export async function resendInvitation(
   return invite(shopId, inviter, { email: open.email, role: open.role }, deps);
 }
 
-export async function withdrawInvitation(shopId: string, invitationId: string): Promise<void> {
-  if (!(await revokeInvitation(shopId, invitationId))) throw AppError.notFound("No open invitation with this id in this shop.");
+export async function withdrawInvitation(shopId: string, invitationId: string, actor: AuditActor): Promise<void> {
+  await inTransaction(async (tx) => {
+    const open = await findOpenInvitation(shopId, { id: invitationId }, tx);
+    if (!open || !(await revokeInvitation(shopId, invitationId, tx))) throw AppError.notFound("No open invitation with this id in this shop.");
+    await recordAuditEvent(tx, {
+      shopId,
+      actor,
+      action: "invitation.revoked",
+      subject: { type: "invitation", id: invitationId, label: open.email },
+      detail: { role: open.role },
+    });
+  });
 }
 
 export async function previewInvitation(token: string): Promise<InvitationPreview> {
@@ -137,7 +155,7 @@ export interface Acceptance {
  * without an account creates one (name and password) and joins. The invitation row is locked, so
  * two tabs accepting at once cannot both succeed.
  */
-export async function acceptInvitation(token: string, body: AcceptInvitationBody, signedIn: SessionUser | null): Promise<Acceptance> {
+export async function acceptInvitation(token: string, body: AcceptInvitationBody, signedIn: SessionUser | null, ip: string | null = null): Promise<Acceptance> {
   // Hash outside the transaction: bcrypt takes a few hundred milliseconds on purpose.
   const passwordHash = !signedIn && body.password ? await hashPassword(body.password) : null;
   return inTransaction(async (tx) => {
@@ -147,6 +165,7 @@ export async function acceptInvitation(token: string, body: AcceptInvitationBody
     await lockShop(invitation.shopId, tx);
 
     let userId: string;
+    let userName: string;
     let sessionVersion: number;
     let created = false;
     if (signedIn) {
@@ -156,6 +175,7 @@ export async function acceptInvitation(token: string, body: AcceptInvitationBody
         );
       }
       userId = signedIn.id;
+      userName = signedIn.name;
       sessionVersion = signedIn.sessionVersion;
     } else {
       if (await findUserIdByEmail(invitation.email, tx)) {
@@ -167,6 +187,7 @@ export async function acceptInvitation(token: string, body: AcceptInvitationBody
       if (Object.keys(fields).length > 0) throw AppError.validation("Some fields need attention.", fields);
       const user = await createUser({ email: invitation.email, name: body.name!, passwordHash: passwordHash! }, tx);
       userId = user.id;
+      userName = user.name;
       sessionVersion = user.sessionVersion;
       created = true;
     }
@@ -178,6 +199,13 @@ export async function acceptInvitation(token: string, body: AcceptInvitationBody
       await addMember({ shopId: invitation.shopId, userId, role: invitation.role }, tx);
     }
     await markInvitationAccepted(invitation.id, userId, tx);
+    await recordAuditEvent(tx, {
+      shopId: invitation.shopId,
+      actor: { userId, name: userName, ip },
+      action: "invitation.accepted",
+      subject: { type: "invitation", id: invitation.id, label: invitation.email },
+      detail: { role: membership?.role ?? invitation.role, newAccount: created, alreadyMember: membership !== null },
+    });
     await updateUser(userId, { activeShopId: invitation.shopId }, tx);
     return { userId, sessionVersion, shopId: invitation.shopId, role: membership?.role ?? invitation.role, created };
   });

@@ -3,6 +3,7 @@ import { memberParamsSchema, paginationQuerySchema, updateMemberBodySchema } fro
 import { currentShop } from "../../http/locals.js";
 import { inputOf, validate } from "../../http/validate.js";
 import { requireShopRole } from "../shops/require-shop-role.js";
+import { requestActor } from "../audit/audit-actor.js";
 import { changeMemberRole, listShopMembers, removeMember } from "./members.service.js";
 
 const listInput = { query: paginationQuerySchema };
@@ -20,12 +21,12 @@ export function registerMemberRoutes(router: Router): void {
 
   router.patch("/members/:userId", owner, validate(updateInput), async (_req, res) => {
     const { params, body } = inputOf(res, updateInput);
-    res.json(await changeMemberRole(currentShop(res).shop.id, params.userId, body.role));
+    res.json(await changeMemberRole(currentShop(res).shop.id, params.userId, body.role, requestActor(res)));
   });
 
   router.delete("/members/:userId", owner, validate(removeInput), async (_req, res) => {
     const { params } = inputOf(res, removeInput);
-    await removeMember(currentShop(res).shop.id, params.userId);
+    await removeMember(currentShop(res).shop.id, params.userId, requestActor(res));
     res.status(204).end();
   });
 }

@@ -65,8 +65,14 @@ export async function listMembershipsOfUser(userId: string): Promise<MembershipR
 }
 
 /** Renames the shop `shopId` (scoped by id: the caller's shop only). */
-export async function renameShop(shopId: string, name: string): Promise<ShopRecord | null> {
-  const [count, rows] = await ShopModel.update({ name }, { where: { id: shopId }, returning: true });
+/** The shop's name, its row locked until `tx` ends; null when there is no such shop. */
+export async function lockShopName(shopId: string, tx: Tx): Promise<string | null> {
+  const row = await ShopModel.findByPk(shopId, { attributes: ["name"], transaction: tx, lock: tx.LOCK.UPDATE });
+  return row?.name ?? null;
+}
+
+export async function renameShop(shopId: string, name: string, tx?: Tx): Promise<ShopRecord | null> {
+  const [count, rows] = await ShopModel.update({ name }, { where: { id: shopId }, returning: true, transaction: tx ?? null });
   const row = rows[0];
   return count > 0 && row ? toShop(row) : null;
 }

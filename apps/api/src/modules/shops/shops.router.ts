@@ -3,6 +3,7 @@ import { createShopBodySchema, updateShopBodySchema } from "@ringdown/contracts"
 import { currentShop, currentUser } from "../../http/locals.js";
 import { inputOf, validate } from "../../http/validate.js";
 import { requireShopRole } from "./require-shop-role.js";
+import { requestActor } from "../audit/audit-actor.js";
 import { createShop, describeShop, renameOwnShop } from "./shops.service.js";
 
 const createInput = { body: createShopBodySchema };
@@ -13,7 +14,7 @@ export function createShopsRouter(): Router {
   const router = Router();
   router.post("/", validate(createInput), async (_req, res) => {
     const { body } = inputOf(res, createInput);
-    res.status(201).json(await createShop(currentUser(res).id, body.name));
+    res.status(201).json(await createShop({ ...requestActor(res), userId: currentUser(res).id }, body.name));
   });
   return router;
 }
@@ -28,6 +29,6 @@ export function registerShopRoutes(router: Router): void {
   router.patch("/", requireShopRole("owner"), validate(updateInput), async (_req, res) => {
     const { body } = inputOf(res, updateInput);
     const { shop, membership } = currentShop(res);
-    res.json(await renameOwnShop(shop.id, body.name, membership.role));
+    res.json(await renameOwnShop(shop.id, body.name, membership.role, requestActor(res)));
   });
 }
