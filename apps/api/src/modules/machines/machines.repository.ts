@@ -104,14 +104,39 @@ export async function findMachine(shopId: string, id: string, tx?: Tx, lock = fa
   return toMachine(row, modes, points);
 }
 
-/** Replaces the machine's whole mode set (the caller's transaction keeps it all-or-nothing). */
+/**
+ * Replaces the machine's whole mode set (the caller's transaction keeps it all-or-nothing). A mode
+ * sent back unchanged keeps what the form does not carry: its measurement date, the recording it
+ * was accepted from and the mass it was estimated with.
+ */
 export async function replaceModes(shopId: string, machineId: string, modes: MachineMode[], tx: Tx): Promise<void> {
+  type Kept = { direction: string; frequency_hz: number; damping_ratio: number; stiffness_n_per_mm: number; source: string; recording_id: string | null; mass_kg: number | null; measured_at: Date };
+  const before = await getSequelize().query<Kept>(
+    `SELECT direction, frequency_hz, damping_ratio, stiffness_n_per_mm, source, recording_id, mass_kg, measured_at
+       FROM machine_modes WHERE shop_id = :shopId AND machine_id = :machineId`,
+    { replacements: { shopId, machineId }, type: QueryTypes.SELECT, transaction: tx },
+  );
   await MachineModeModel.destroy({ where: { shopId, machineId }, transaction: tx });
-  if (modes.length > 0) {
-    await MachineModeModel.bulkCreate(
-      modes.map((m) => ({ ...m, shopId, machineId })),
-      { transaction: tx },
+  if (modes.length === 0) return;
+  const created = await MachineModeModel.bulkCreate(
+    modes.map((m) => ({ ...m, shopId, machineId })),
+    { transaction: tx, returning: true },
+  );
+  for (const row of created) {
+    const i = before.findIndex(
+      (b) =>
+        b.direction === row.direction &&
+        b.frequency_hz === row.frequencyHz &&
+        b.damping_ratio === row.dampingRatio &&
+        b.stiffness_n_per_mm === row.stiffnessNPerMm &&
+        b.source === row.source,
     );
+    if (i < 0) continue;
+    const [kept] = before.splice(i, 1);
+    await getSequelize().query(`UPDATE machine_modes SET recording_id = :recordingId, mass_kg = :massKg, measured_at = :measuredAt WHERE id = :id`, {
+      replacements: { recordingId: kept!.recording_id, massKg: kept!.mass_kg, measuredAt: kept!.measured_at, id: row.id },
+      transaction: tx,
+    });
   }
 }
 

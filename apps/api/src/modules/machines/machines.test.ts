@@ -138,6 +138,26 @@ describe("POST, GET /machines", () => {
 });
 
 describe("PATCH /machines/:id", () => {
+  it("keeps an unchanged mode's date and estimate mass when the mode set is sent back with one more mode", async () => {
+    const { getSequelize } = await import("../../db/sequelize.js");
+    const m = await create({ name: "Mode keeper" });
+    await getSequelize().query(`UPDATE machine_modes SET mass_kg = 17, measured_at = '2026-01-05T10:00:00Z' WHERE machine_id = :id`, { replacements: { id: m.id } });
+    const res = await team.tooling_manager.agent.patch(`${base()}/${m.id}`).send({
+      modes: [...m.modes, { direction: "x", frequencyHz: 702, dampingRatio: 0.025, stiffnessNPerMm: 1900, source: "measured", note: "" }],
+    });
+    expect(res.status).toBe(200);
+    const [rows] = await getSequelize().query(`SELECT frequency_hz, mass_kg, measured_at FROM machine_modes WHERE machine_id = :id ORDER BY frequency_hz`, {
+      replacements: { id: m.id },
+    });
+    const kept = rows as Array<{ frequency_hz: number; mass_kg: number | null; measured_at: Date }>;
+    expect(kept).toHaveLength(m.modes.length + 1);
+    for (const row of kept.filter((r) => m.modes.some((x) => x.frequencyHz === r.frequency_hz))) {
+      expect(row.mass_kg).toBe(17);
+      expect(new Date(row.measured_at).toISOString()).toBe("2026-01-05T10:00:00.000Z");
+    }
+    expect(kept.find((r) => r.frequency_hz === 702)!.mass_kg).toBeNull();
+  });
+
   it("replaces the whole mode set when modes are sent and leaves them alone otherwise", async () => {
     const m = await create({ name: "Mode swap" });
     const renamed = machineSchema.parse((await team.tooling_manager.agent.patch(`${base()}/${m.id}`).send({ name: "Mode swap 2" })).body);
