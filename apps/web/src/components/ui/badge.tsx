@@ -11,11 +11,12 @@ export type BadgeTone = "neutral" | "brand" | "ok" | "near" | "limit" | "measure
 const tones: Record<BadgeTone, string> = {
   neutral: "border-rule bg-paper text-muted",
   brand: "border-brand/30 bg-brand-tint text-brand",
-  // A darker green than the state colour itself: 4.4:1 on its own tint is below AA for small text.
+  // Text darker than the state colour itself: on its own tint, over paper, the plain colour falls
+  // below 4.5:1 for small text (checked for every tone in src/lib/contrast.test.ts).
   ok: "border-ok/30 bg-ok/10 text-[#24654a]",
   near: "border-near/40 bg-near/10 text-[#8a5a12]",
-  limit: "border-limit/30 bg-limit/10 text-limit",
-  measured: "border-measured/30 bg-measured/10 text-measured",
+  limit: "border-limit/30 bg-limit/10 text-[#a3342a]",
+  measured: "border-measured/30 bg-measured/10 text-[#1b6580]",
 };
 
 export function Badge({ tone = "neutral", children, className, title }: { tone?: BadgeTone; children: ReactNode; className?: string; title?: string }) {

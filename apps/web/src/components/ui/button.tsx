@@ -1,4 +1,4 @@
-import type { ButtonHTMLAttributes } from "react";
+import type { ButtonHTMLAttributes, Ref } from "react";
 import { cn } from "@/lib/cn";
 import { Spinner } from "./spinner";
 
@@ -22,6 +22,7 @@ export interface ButtonProps extends ButtonHTMLAttributes<HTMLButtonElement> {
   size?: Size;
   /** Shows a spinner, disables the button and keeps its label for screen readers. */
   pending?: boolean;
+  ref?: Ref<HTMLButtonElement>;
 }
 
 export function Button({

@@ -97,6 +97,20 @@ describe("DataTable", () => {
     expect(screen.getByRole("button", { name: "Next" })).toBeDisabled();
   });
 
+  it("keeps the keyboard's focus on the pager when the last or first page disables the button pressed", async () => {
+    const user = userEvent.setup();
+    const many = Array.from({ length: 12 }, (_, i) => ({ id: String(i), name: `Cutter ${String(i + 1).padStart(2, "0")}`, diameterMm: i + 1 }));
+    render(<DataTable columns={columns} data={many} label="Test cutters" pageSize={10} />);
+    screen.getByRole("button", { name: "Next" }).focus();
+    await user.keyboard("{Enter}");
+    expect(screen.getByText(/Rows 11–12 of 12/)).toBeInTheDocument();
+    expect(screen.getByRole("button", { name: "Next" })).toBeDisabled();
+    expect(screen.getByRole("button", { name: "Previous" })).toHaveFocus();
+    await user.keyboard("{Enter}");
+    expect(screen.getByText(/Rows 1–10 of 12/)).toBeInTheDocument();
+    expect(screen.getByRole("button", { name: "Next" })).toHaveFocus();
+  });
+
   it("hands sorting and paging to the parent in server mode", async () => {
     const user = userEvent.setup();
     const onSortingChange = vi.fn();

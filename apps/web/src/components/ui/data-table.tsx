@@ -11,7 +11,7 @@ import {
   type SortingState,
 } from "@tanstack/react-table";
 import { ArrowDown, ArrowUp, ArrowUpDown, ChevronLeft, ChevronRight, TriangleAlert } from "lucide-react";
-import { useEffect, useId, useState, type ReactNode } from "react";
+import { useEffect, useId, useRef, useState, type ReactNode } from "react";
 import { cn } from "@/lib/cn";
 import { formatNumber } from "@/lib/format";
 import { Button } from "./button";
@@ -138,6 +138,18 @@ export function DataTable<T>({
   const last = Math.min(total, (pageIndex + 1) * size);
   const pageCount = Math.max(1, Math.ceil(total / size));
   const showBody = !isLoading && !error;
+
+  // Reaching the first or last page disables the button just pressed; the keyboard's focus then
+  // moves to the other page button instead of falling back to the top of the page.
+  const previousButton = useRef<HTMLButtonElement>(null);
+  const nextButton = useRef<HTMLButtonElement>(null);
+  const pressed = useRef<"previous" | "next" | null>(null);
+  useEffect(() => {
+    const which = pressed.current;
+    pressed.current = null;
+    const [button, other] = which === "next" ? [nextButton.current, previousButton.current] : [previousButton.current, nextButton.current];
+    if (which && button?.disabled && other && !other.disabled) other.focus();
+  }, [pageIndex]);
 
   // Fewer rows after a filter change: stay on a page that exists.
   useEffect(() => {
@@ -298,11 +310,29 @@ export function DataTable<T>({
                 Page {formatNumber(pageIndex + 1)} of {formatNumber(pageCount)}
               </span>
               <div className="flex gap-1">
-                <Button variant="secondary" size="sm" onClick={() => table.previousPage()} disabled={!table.getCanPreviousPage()}>
+                <Button
+                  ref={previousButton}
+                  variant="secondary"
+                  size="sm"
+                  onClick={() => {
+                    pressed.current = "previous";
+                    table.previousPage();
+                  }}
+                  disabled={!table.getCanPreviousPage()}
+                >
                   <ChevronLeft className="size-4" aria-hidden />
                   Previous
                 </Button>
-                <Button variant="secondary" size="sm" onClick={() => table.nextPage()} disabled={!table.getCanNextPage()}>
+                <Button
+                  ref={nextButton}
+                  variant="secondary"
+                  size="sm"
+                  onClick={() => {
+                    pressed.current = "next";
+                    table.nextPage();
+                  }}
+                  disabled={!table.getCanNextPage()}
+                >
                   Next
                   <ChevronRight className="size-4" aria-hidden />
                 </Button>

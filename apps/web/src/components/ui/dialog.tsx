@@ -1,5 +1,6 @@
 import { X } from "lucide-react";
-import { useEffect, useId, useRef, type ReactNode } from "react";
+import { useId, type ReactNode } from "react";
+import { useModal } from "./use-modal";
 
 /**
  * A modal dialog on the native <dialog> element (focus trap, Escape and the
@@ -19,16 +20,9 @@ export function Dialog({
   description?: ReactNode;
   children: ReactNode;
 }) {
-  const ref = useRef<HTMLDialogElement>(null);
+  const { ref, mounted } = useModal(open);
   const titleId = useId();
   const descriptionId = useId();
-
-  useEffect(() => {
-    const dialog = ref.current;
-    if (!dialog) return;
-    if (open && !dialog.open) dialog.showModal();
-    if (!open && dialog.open) dialog.close();
-  }, [open]);
 
   return (
     <dialog
@@ -42,7 +36,7 @@ export function Dialog({
       }}
       className="m-auto w-[calc(100%-2rem)] max-w-md rounded-lg border border-rule bg-surface p-0 text-ink shadow-xl backdrop:bg-ink/40"
     >
-      {open && (
+      {mounted && (
         <div className="px-5 py-5">
           <div className="mb-4 flex items-start justify-between gap-4">
             <div>

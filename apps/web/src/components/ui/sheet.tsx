@@ -1,5 +1,6 @@
 import { X } from "lucide-react";
-import { useEffect, useId, useRef, type ReactNode } from "react";
+import { useId, type ReactNode } from "react";
+import { useModal } from "./use-modal";
 
 /**
  * A modal panel along the right edge, for forms too long for a dialog (native <dialog>: focus
@@ -23,16 +24,9 @@ export function Sheet({
   footer?: ReactNode;
   width?: string;
 }) {
-  const ref = useRef<HTMLDialogElement>(null);
+  const { ref, mounted } = useModal(open);
   const titleId = useId();
   const descriptionId = useId();
-
-  useEffect(() => {
-    const dialog = ref.current;
-    if (!dialog) return;
-    if (open && !dialog.open) dialog.showModal();
-    if (!open && dialog.open) dialog.close();
-  }, [open]);
 
   return (
     <dialog
@@ -45,7 +39,7 @@ export function Sheet({
       }}
       className={`fixed inset-y-0 right-0 left-auto m-0 h-dvh max-h-dvh w-full ${width} border-l border-rule bg-paper p-0 text-ink shadow-2xl backdrop:bg-ink/40`}
     >
-      {open && (
+      {mounted && (
         <div className="flex h-full flex-col">
           <div className="flex items-start justify-between gap-4 border-b border-rule bg-surface px-5 py-4">
             <div className="min-w-0">
