@@ -10,6 +10,7 @@ import { migrate } from "./db/migrate.js";
 import { closeDatabase, connectDatabase, getSequelize } from "./db/sequelize.js";
 import { purgeExpiredRateLimits, settleRateLimitWrites } from "./http/rate-limit-store.js";
 import { seedDemo } from "./seed/index.js";
+import { settleBackgroundMail } from "./modules/mail/background.js";
 import { startJobQueue, stopJobQueue } from "./jobs/job-queue.js";
 import { startAnalysisWorker } from "./modules/analysis/analysis.worker.js";
 import { LocalDirectoryStorage } from "./storage/local-directory-storage.js";
@@ -101,7 +102,8 @@ async function main(): Promise<void> {
     }, 10_000);
     force.unref();
     server.close(() => {
-      settleRateLimitWrites()
+      // Password-reset e-mails are sent after their response: let them go out before stopping.
+      Promise.all([settleRateLimitWrites(), settleBackgroundMail()])
         // A running analysis may finish for up to 8 s; an unfinished one is handed out again later.
         .then(() => stopJobQueue({ graceful: true, timeoutMs: 8_000 }))
         .then(closeDatabase)

@@ -28,7 +28,8 @@ async function main(): Promise<void> {
   }
   const sequelize = connectDatabase(config.databaseUrl);
   // The schema must be current before jobs are read (an API start does the same under the same lock).
-  await migrate(sequelize, config.databaseUrl);
+  const applied = await migrate(sequelize, config.databaseUrl);
+  log(applied.length > 0 ? `applied migrations: ${applied.join(", ")}` : "database schema up to date");
   const boss = await startJobQueue(config.databaseUrl, log);
   await startAnalysisWorker(boss, { storage: new LocalDirectoryStorage(config.storageDir), log }, config.jobs.analysisConcurrency);
   log(`working recording analyses (${config.jobs.analysisConcurrency} at a time)`);
