@@ -8,7 +8,6 @@
 import { spawn, type ChildProcess } from "node:child_process";
 import { randomBytes } from "node:crypto";
 import { mkdtemp, rm } from "node:fs/promises";
-import { createServer } from "node:net";
 import { tmpdir } from "node:os";
 import path from "node:path";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
@@ -27,6 +26,7 @@ import { machineBody } from "../modules/machines/library-test-fixtures.js";
 import { toneSignal, wavBytes } from "../modules/recordings/recording-fixtures.js";
 import { TEST_PASSWORD, uniqueEmail } from "./harness.js";
 import { testDatabaseUrl } from "./database-url.js";
+import { freeTcpPort } from "./free-port.js";
 
 /** Where the browser believes the app lives: the load balancer's address (APP_URL of both processes). */
 const APP_URL = "http://ringdown.invalid";
@@ -49,17 +49,6 @@ function ownDatabaseUrl(): string {
   const url = new URL(testDatabaseUrl());
   url.pathname = `${url.pathname.replace(/_test$/, "")}_two_instances_test`;
   return url.toString();
-}
-
-function freePort(): Promise<number> {
-  return new Promise((resolve, reject) => {
-    const probe = createServer();
-    probe.once("error", reject);
-    probe.listen(0, "127.0.0.1", () => {
-      const address = probe.address();
-      probe.close(() => (typeof address === "object" && address ? resolve(address.port) : reject(new Error("no port"))));
-    });
-  });
 }
 
 /** Runs a TypeScript entry point of the API in its own Node process, as `npm run worker` does. */
@@ -137,7 +126,7 @@ beforeAll(async () => {
     // A web build is not needed here; a path that surely holds none keeps the processes from serving one.
     WEB_DIST: path.join(storageDir, "no-web-build"),
   };
-  const [portA, portB] = await Promise.all([freePort(), freePort()]);
+  const [portA, portB] = await Promise.all([freeTcpPort(), freeTcpPort()]);
   // All three start at once on the empty database: their migrations must not collide.
   const apiA = startProcess("API A", "server.ts", { ...shared, PORT: String(portA), RUN_WORKER: "false" });
   const apiB = startProcess("API B", "server.ts", { ...shared, PORT: String(portB), RUN_WORKER: "false" });
