@@ -16,6 +16,7 @@ import {
   startCheckout,
 } from "./billing.service.js";
 import { paymentProvider } from "./payment-provider.js";
+import { requestActor } from "../audit/audit-actor.js";
 
 const checkoutInput = { body: checkoutBodySchema };
 const confirmInput = { body: confirmCheckoutBodySchema };
@@ -36,25 +37,25 @@ export function registerBillingRoutes(router: Router, config: AppConfig): void {
   router.post("/billing/checkout", owner, validate(checkoutInput), async (_req, res) => {
     const { body } = inputOf(res, checkoutInput);
     const user = currentUser(res);
-    res.status(201).json(await startCheckout(currentShop(res).shop.id, { name: user.name, email: user.email }, body.seats, config));
+    res.status(201).json(await startCheckout(currentShop(res).shop.id, { name: user.name, email: user.email, actor: requestActor(res) }, body.seats, config));
   });
 
   router.post("/billing/checkout/confirm", owner, validate(confirmInput), async (_req, res) => {
     const { body } = inputOf(res, confirmInput);
-    res.json(await confirmCheckout(currentShop(res).shop.id, body.sessionId, config));
+    res.json(await confirmCheckout(currentShop(res).shop.id, body.sessionId, config, requestActor(res)));
   });
 
   router.post("/billing/seats", owner, validate(seatsInput), async (_req, res) => {
     const { body } = inputOf(res, seatsInput);
-    res.json(await changeSeats(currentShop(res).shop.id, body.seats, config));
+    res.json(await changeSeats(currentShop(res).shop.id, body.seats, config, requestActor(res)));
   });
 
   router.post("/billing/cancel", owner, async (_req, res) => {
-    res.json(await setCancelAtPeriodEnd(currentShop(res).shop.id, true, config));
+    res.json(await setCancelAtPeriodEnd(currentShop(res).shop.id, true, config, requestActor(res)));
   });
 
   router.post("/billing/resume", owner, async (_req, res) => {
-    res.json(await setCancelAtPeriodEnd(currentShop(res).shop.id, false, config));
+    res.json(await setCancelAtPeriodEnd(currentShop(res).shop.id, false, config, requestActor(res)));
   });
 }
 

@@ -21,6 +21,8 @@ import {
   shopName,
 } from "./billing.repository.js";
 import { paymentProvider, type ProviderSubscription } from "./payment-provider.js";
+import { recordAuditEvent, type AuditActor } from "../audit/audit.service.js";
+import { paymentProviderActor } from "../audit/audit-actor.js";
 import { PAID_STATUSES, computePlan, isTeamPlan, machineLimitMessage, seatLimitMessage } from "./plan.js";
 
 /** The shop's plan and usage right now (inside `tx` when given, e.g. after `lockShop`). */
@@ -77,8 +79,14 @@ export async function getBillingStatus(shopId: string, config: AppConfig): Promi
   };
 }
 
-/** Stores the provider's view of a subscription as the shop's plan state. */
-async function syncSubscription(shopId: string, sub: ProviderSubscription, tx: Tx): Promise<void> {
+/** Who the audit log names for a plan the demo set-up grants. */
+const planGrantActor: AuditActor = { userId: null, name: "Invoiced plan set-up", ip: null };
+
+/**
+ * Stores the provider's view of a subscription as the shop's plan state, and records in the audit
+ * log what changed for the shop (status, seats, cancellation at the period's end), naming `actor`.
+ */
+async function syncSubscription(shopId: string, sub: ProviderSubscription, tx: Tx, actor: AuditActor): Promise<void> {
   const current = await findSubscription(shopId, tx);
   // An old subscription's news must not replace the paid one the shop moved on to.
   if (
@@ -89,6 +97,8 @@ async function syncSubscription(shopId: string, sub: ProviderSubscription, tx: T
   ) {
     return;
   }
+  const before = { status: current?.status ?? "none", seats: current?.seats ?? 0, cancelAtPeriodEnd: current?.cancelAtPeriodEnd ?? false };
+  const after = { status: sub.status, seats: sub.seats, cancelAtPeriodEnd: sub.cancelAtPeriodEnd };
   await saveSubscription(
     shopId,
     {
@@ -102,11 +112,20 @@ async function syncSubscription(shopId: string, sub: ProviderSubscription, tx: T
     },
     tx,
   );
+  if (JSON.stringify(before) !== JSON.stringify(after)) {
+    await recordAuditEvent(tx, {
+      shopId,
+      actor,
+      action: "billing.plan_changed",
+      subject: { type: "subscription", id: sub.id, label: "Team plan" },
+      detail: { before, after },
+    });
+  }
 }
 
 export async function startCheckout(
   shopId: string,
-  owner: { name: string; email: string },
+  owner: { name: string; email: string; actor: AuditActor },
   seats: number,
   config: AppConfig,
 ): Promise<CheckoutStarted> {
@@ -137,6 +156,13 @@ export async function startCheckout(
       successUrl: `${base}?checkout=done&session_id={CHECKOUT_SESSION_ID}`,
       cancelUrl: `${base}?checkout=cancelled`,
     });
+    await recordAuditEvent(tx, {
+      shopId,
+      actor: owner.actor,
+      action: "billing.checkout_started",
+      subject: { type: "subscription", id: null, label: "Team plan" },
+      detail: { seats },
+    });
     return { url: session.url, sessionId: session.id };
   });
 }
@@ -145,7 +171,7 @@ export async function startCheckout(
  * After the provider sent the owner back: reads the checkout and its subscription from the
  * provider, so the plan is right even before (or without) the webhook.
  */
-export async function confirmCheckout(shopId: string, sessionId: string, config: AppConfig): Promise<BillingStatus> {
+export async function confirmCheckout(shopId: string, sessionId: string, config: AppConfig, actor: AuditActor): Promise<BillingStatus> {
   const provider = paymentProvider(config.billing);
   const checkout = await provider.retrieveCheckout(sessionId);
   if (checkout.shopId !== shopId) throw AppError.notFound("No checkout of this shop has that id.");
@@ -153,7 +179,7 @@ export async function confirmCheckout(shopId: string, sessionId: string, config:
     throw AppError.conflict("This checkout was not completed, so the plan is unchanged.");
   }
   const sub = await provider.retrieveSubscription(checkout.subscriptionId);
-  await inTransaction((tx) => syncSubscription(shopId, sub, tx));
+  await inTransaction((tx) => syncSubscription(shopId, sub, tx, actor));
   return getBillingStatus(shopId, config);
 }
 
@@ -165,7 +191,7 @@ async function requireTeamSubscription(shopId: string) {
   return { ...sub, providerSubscriptionId: sub.providerSubscriptionId };
 }
 
-export async function changeSeats(shopId: string, seats: number, config: AppConfig): Promise<BillingStatus> {
+export async function changeSeats(shopId: string, seats: number, config: AppConfig, actor: AuditActor): Promise<BillingStatus> {
   const provider = paymentProvider(config.billing);
   await inTransaction(async (tx) => {
     await lockShop(shopId, tx);
@@ -182,17 +208,17 @@ export async function changeSeats(shopId: string, seats: number, config: AppConf
     if (!sub.providerSubscriptionItemId) throw new AppError("service_unavailable", "The subscription has no seat item at the provider.");
     if (seats === sub.seats) return;
     const updated = await provider.changeSeats(sub.providerSubscriptionId, sub.providerSubscriptionItemId, seats);
-    await syncSubscription(shopId, updated, tx);
+    await syncSubscription(shopId, updated, tx, actor);
   });
   return getBillingStatus(shopId, config);
 }
 
-export async function setCancelAtPeriodEnd(shopId: string, cancel: boolean, config: AppConfig): Promise<BillingStatus> {
+export async function setCancelAtPeriodEnd(shopId: string, cancel: boolean, config: AppConfig, actor: AuditActor): Promise<BillingStatus> {
   const provider = paymentProvider(config.billing);
   const sub = await requireTeamSubscription(shopId);
   if (sub.cancelAtPeriodEnd !== cancel) {
     const updated = await provider.setCancelAtPeriodEnd(sub.providerSubscriptionId, cancel);
-    await inTransaction((tx) => syncSubscription(shopId, updated, tx));
+    await inTransaction((tx) => syncSubscription(shopId, updated, tx, actor));
   }
   return getBillingStatus(shopId, config);
 }
@@ -248,7 +274,7 @@ export async function handleWebhookEvent(event: Stripe.Event, config: AppConfig)
       return { duplicate: false };
     }
     await setEventShop(event.id, shopId, tx);
-    await syncSubscription(shopId, sub, tx);
+    await syncSubscription(shopId, sub, tx, paymentProviderActor);
     return { duplicate: false };
   });
 }
@@ -264,13 +290,13 @@ export async function grantTeamPlan(shopId: string, seats: number, config: AppCo
     if (existing?.providerSubscriptionId) {
       const sub = await provider.retrieveSubscription(existing.providerSubscriptionId);
       if (PAID_STATUSES.includes(sub.status)) {
-        await inTransaction((tx) => syncSubscription(shopId, sub, tx));
+        await inTransaction((tx) => syncSubscription(shopId, sub, tx, planGrantActor));
         return "provider";
       }
     }
     const customerId = await provider.createCustomer({ shopId, name: (await shopName(shopId)) ?? "Ringdown shop", email: "billing@invalid.example" });
     const sub = await provider.createInvoicedSubscription({ shopId, customerId, seats });
-    await inTransaction((tx) => syncSubscription(shopId, sub, tx));
+    await inTransaction((tx) => syncSubscription(shopId, sub, tx, planGrantActor));
     return "provider";
   } catch {
     await saveSubscription(shopId, {

@@ -14,6 +14,7 @@ import { AppError } from "../../http/app-error.js";
 import { currentShop } from "../../http/locals.js";
 import { inputOf, validate } from "../../http/validate.js";
 import { requireShopRole } from "../shops/require-shop-role.js";
+import { requestActor } from "../audit/audit-actor.js";
 import { MAX_CSV_BYTES } from "./cutters-csv.js";
 import {
   createCutter,
@@ -92,7 +93,7 @@ export function registerCutterRoutes(router: Router): void {
 
   router.post("/cutters", programmer, validate(createInput), async (_req, res) => {
     const { shop, membership } = currentShop(res);
-    res.status(201).json(await createCutter(shop.id, membership.role, inputOf(res, createInput).body));
+    res.status(201).json(await createCutter(shop.id, membership.role, inputOf(res, createInput).body, requestActor(res)));
   });
 
   // Fixed paths before /cutters/:cutterId.
@@ -109,7 +110,7 @@ export function registerCutterRoutes(router: Router): void {
 
   router.post("/cutters/import", manager, validate(importInput), csvUpload, async (req, res) => {
     const { dryRun } = inputOf(res, importInput).query;
-    const { ok, report } = await importCutters(currentShop(res).shop.id, csvFileOf(req.file), dryRun);
+    const { ok, report } = await importCutters(currentShop(res).shop.id, csvFileOf(req.file), dryRun, requestActor(res), req.file ? Buffer.from(req.file.originalname, "latin1").toString("utf8") : "");
     if (ok) {
       res.status(dryRun ? 200 : 201).json(report);
       return;
@@ -128,22 +129,22 @@ export function registerCutterRoutes(router: Router): void {
 
   router.patch("/cutters/:cutterId", programmer, validate(patchInput), async (req, res) => {
     const { shop, membership } = currentShop(res);
-    res.json(await patchCutter(shop.id, membership.role, cutterId(req.params.cutterId), inputOf(res, patchInput).body));
+    res.json(await patchCutter(shop.id, membership.role, cutterId(req.params.cutterId), inputOf(res, patchInput).body, requestActor(res)));
   });
 
   router.delete("/cutters/:cutterId", programmer, async (req, res) => {
     const { shop, membership } = currentShop(res);
-    await deleteCutter(shop.id, membership.role, cutterId(req.params.cutterId));
+    await deleteCutter(shop.id, membership.role, cutterId(req.params.cutterId), requestActor(res));
     res.status(204).end();
   });
 
   router.post("/cutters/:cutterId/restore", programmer, async (req, res) => {
     const { shop, membership } = currentShop(res);
-    res.json(await restoreCutter(shop.id, membership.role, cutterId(req.params.cutterId)));
+    res.json(await restoreCutter(shop.id, membership.role, cutterId(req.params.cutterId), requestActor(res)));
   });
 
   router.post("/cutters/:cutterId/transition", manager, validate(transitionInput), async (req, res) => {
     const id = cutterId(req.params.cutterId);
-    res.json(await transitionCutter(currentShop(res).shop.id, id, inputOf(res, transitionInput).body.to));
+    res.json(await transitionCutter(currentShop(res).shop.id, id, inputOf(res, transitionInput).body.to, requestActor(res)));
   });
 }

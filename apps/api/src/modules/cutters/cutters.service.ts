@@ -14,6 +14,7 @@ import {
 import { inTransaction } from "../../db/sequelize.js";
 import { AppError } from "../../http/app-error.js";
 import { roleAtLeast } from "../shops/require-shop-role.js";
+import { recordAuditEvent, type AuditActor } from "../audit/audit.service.js";
 import { cuttersToCsv, parseCutterCsv, type UnitChoice } from "./cutters-csv.js";
 import {
   countCutterReferences,
@@ -28,6 +29,9 @@ import {
 
 const isManager = (role: Role) => roleAtLeast(role, "tooling_manager");
 
+/** The subject of a cutter's audit events. */
+const cutterSubject = (c: Pick<Cutter, "id" | "name">) => ({ type: "cutter" as const, id: c.id, label: c.name });
+
 export async function listShopCutters(shopId: string, query: CutterListQuery): Promise<CutterPage> {
   const { items, total } = await listCutters(shopId, query);
   return { items, total, page: query.page, pageSize: query.pageSize };
@@ -40,14 +44,17 @@ export async function getCutter(shopId: string, id: string): Promise<Cutter> {
 }
 
 /** Programmers propose; tooling managers and owners may add an approved cutter directly. */
-export async function createCutter(shopId: string, role: Role, body: CutterCreateBody): Promise<Cutter> {
+export async function createCutter(shopId: string, role: Role, body: CutterCreateBody, actor: AuditActor): Promise<Cutter> {
   const { status = "proposed", ...fields } = body;
   if (status === "approved" && !isManager(role)) {
     throw AppError.forbidden("Only a tooling manager or owner can add an approved cutter; propose it instead.");
   }
-  const [created] = await insertCutters(shopId, [{ ...fields, status }]);
-  if (!created) throw new Error("insert returned no cutter");
-  return created;
+  return inTransaction(async (tx) => {
+    const [created] = await insertCutters(shopId, [{ ...fields, status }], tx);
+    if (!created) throw new Error("insert returned no cutter");
+    await recordAuditEvent(tx, { shopId, actor, action: "cutter.created", subject: cutterSubject(created), detail: { status } });
+    return created;
+  });
 }
 
 function bodyOf(c: Cutter): CutterBody {
@@ -58,7 +65,7 @@ function bodyOf(c: Cutter): CutterBody {
 // Fields that change no computed number: editing them does not ask recipes for a re-check.
 const descriptive = new Set<keyof CutterBody>(["name", "coating", "maker", "partNumber", "notes"]);
 
-export async function patchCutter(shopId: string, role: Role, id: string, patch: CutterPatchBody): Promise<Cutter> {
+export async function patchCutter(shopId: string, role: Role, id: string, patch: CutterPatchBody, actor: AuditActor): Promise<Cutter> {
   return inTransaction(async (tx) => {
     const current = await findCutter(shopId, id, tx, true);
     if (!current) throw AppError.notFound("Cutter not found.");
@@ -75,6 +82,10 @@ export async function patchCutter(shopId: string, role: Role, id: string, patch:
       (k) => !descriptive.has(k) && patch[k] !== current[k],
     );
     if (changedNumbers) await flagRecipesOfCutter(shopId, id, tx);
+    const fields = (Object.keys(patch) as Array<keyof CutterBody>).filter((k) => JSON.stringify(patch[k]) !== JSON.stringify(current[k]));
+    if (fields.length > 0) {
+      await recordAuditEvent(tx, { shopId, actor, action: "cutter.updated", subject: cutterSubject(updated), detail: { fields } });
+    }
     return updated;
   });
 }
@@ -86,7 +97,7 @@ const allowedMoves: Record<CutterStatus, CutterStatus[]> = {
   retired: ["approved"],
 };
 
-export async function transitionCutter(shopId: string, id: string, to: CutterStatus): Promise<Cutter> {
+export async function transitionCutter(shopId: string, id: string, to: CutterStatus, actor: AuditActor): Promise<Cutter> {
   return inTransaction(async (tx) => {
     const current = await findCutter(shopId, id, tx, true);
     if (!current) throw AppError.notFound("Cutter not found.");
@@ -101,6 +112,13 @@ export async function transitionCutter(shopId: string, id: string, to: CutterSta
     }
     const updated = await updateCutter(shopId, id, { status: to }, tx);
     if (!updated) throw AppError.notFound("Cutter not found.");
+    await recordAuditEvent(tx, {
+      shopId,
+      actor,
+      action: "cutter.status_changed",
+      subject: cutterSubject(updated),
+      detail: { from: current.status, to },
+    });
     return updated;
   });
 }
@@ -114,7 +132,7 @@ function mayBin(role: Role, cutter: Cutter): void {
 const count = (n: number, one: string, many: string) => `${n} ${n === 1 ? one : many}`;
 
 /** Soft delete; refused while recipes or assemblies use the cutter (retire it instead). */
-export async function deleteCutter(shopId: string, role: Role, id: string): Promise<void> {
+export async function deleteCutter(shopId: string, role: Role, id: string, actor: AuditActor): Promise<void> {
   await inTransaction(async (tx) => {
     const current = await findCutter(shopId, id, tx, true);
     if (!current || current.deletedAt) throw AppError.notFound("Cutter not found.");
@@ -130,10 +148,11 @@ export async function deleteCutter(shopId: string, role: Role, id: string): Prom
       throw AppError.conflict(`This cutter is used by ${parts} — retire it instead.`);
     }
     await updateCutter(shopId, id, { deletedAt: new Date() }, tx);
+    await recordAuditEvent(tx, { shopId, actor, action: "cutter.deleted", subject: cutterSubject(current), detail: { status: current.status } });
   });
 }
 
-export async function restoreCutter(shopId: string, role: Role, id: string): Promise<Cutter> {
+export async function restoreCutter(shopId: string, role: Role, id: string, actor: AuditActor): Promise<Cutter> {
   return inTransaction(async (tx) => {
     const current = await findCutter(shopId, id, tx, true);
     if (!current) throw AppError.notFound("Cutter not found.");
@@ -141,6 +160,7 @@ export async function restoreCutter(shopId: string, role: Role, id: string): Pro
     if (!current.deletedAt) return current;
     const restored = await updateCutter(shopId, id, { deletedAt: null }, tx);
     if (!restored) throw AppError.notFound("Cutter not found.");
+    await recordAuditEvent(tx, { shopId, actor, action: "cutter.restored", subject: cutterSubject(restored) });
     return restored;
   });
 }
@@ -154,6 +174,8 @@ export async function importCutters(
   shopId: string,
   file: Buffer,
   dryRun: boolean,
+  actor: AuditActor,
+  fileName = "",
 ): Promise<{ ok: boolean; report: CutterImportReport }> {
   const parsed = parseCutterCsv(file, { defaultStatus: "approved", existingNames: await cutterNames(shopId) });
   const valid = parsed.rows.filter((r) => r.cutter !== null);
@@ -166,13 +188,21 @@ export async function importCutters(
   };
   const ok = parsed.fileErrors.length === 0 && report.counts.invalid === 0;
   if (dryRun || !ok) return { ok, report };
-  const created = await inTransaction((tx) =>
-    insertCutters(
+  const created = await inTransaction(async (tx) => {
+    const rows = await insertCutters(
       shopId,
       valid.map((r) => r.cutter!),
       tx,
-    ),
-  );
+    );
+    await recordAuditEvent(tx, {
+      shopId,
+      actor,
+      action: "cutter.imported",
+      subject: { type: "cutter", id: null, label: fileName ? `Cutter list ${fileName}` : "Cutter list" },
+      detail: { rows: rows.length },
+    });
+    return rows;
+  });
   return { ok: true, report: { ...report, imported: created.length } };
 }
 
