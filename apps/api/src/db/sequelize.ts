@@ -26,8 +26,21 @@ export function connectDatabase(databaseUrl: string): Sequelize {
     dialect: "postgres",
     dialectModule: pg,
     logging: false,
-    pool: { max: 10, min: 0, acquire: 10_000, idle: 10_000 },
+    // Fail fast when PostgreSQL is away: a connection attempt gives up after 4 s and a request
+    // waits at most 5 s for a pooled connection, then gets a 503 (error middleware). Broken
+    // connections are dropped from the pool, so it recovers by itself when the server is back.
+    pool: { max: 10, min: 0, acquire: 5_000, idle: 10_000 },
+    dialectOptions: { connectionTimeoutMillis: 4_000 },
     define: { underscored: true },
+  });
+  // When the server ends a session while a statement runs (shutdown, restart, a terminated
+  // backend), node-postgres reports it to that statement only and Sequelize would put the dead
+  // connection back in the pool for the next request. Marked invalid, the pool drops it instead.
+  instance.addHook("afterConnect", (connection) => {
+    const client = connection as pg.Client & { _invalid?: boolean };
+    client.once("end", () => {
+      client._invalid = true;
+    });
   });
   initUserModel(instance);
   initShopModel(instance);

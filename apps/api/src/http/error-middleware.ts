@@ -1,7 +1,8 @@
 import type { ErrorRequestHandler, RequestHandler } from "express";
-import { BaseError, ConnectionError, UniqueConstraintError } from "sequelize";
+import { BaseError, UniqueConstraintError } from "sequelize";
 import { ZodError } from "zod";
 import type { ApiError, ErrorCode } from "@ringdown/contracts";
+import { isDatabaseUnavailable } from "../db/connection-errors.js";
 import { AppError, statusByCode } from "./app-error.js";
 import { fieldErrors } from "./validate.js";
 
@@ -24,8 +25,13 @@ function toAppError(err: unknown): AppError | undefined {
     const fields = Object.fromEntries(Object.keys(err.fields ?? {}).map((f) => [f, "This value is already in use."]));
     return AppError.conflict("That already exists.", Object.keys(fields).length > 0 ? fields : undefined);
   }
-  if (err instanceof ConnectionError) {
-    return new AppError("service_unavailable", "The database is unavailable. Try again in a moment.", { cause: err });
+  // The database stopped, restarting, or its connection cut: a clear 503, never a 500 (the pool
+  // replaces broken connections by itself, so the next request after its return succeeds).
+  if (isDatabaseUnavailable(err)) {
+    return new AppError("service_unavailable", "The database is unavailable. Try again in a moment.", {
+      cause: err,
+      retryAfterSeconds: 5,
+    });
   }
   if (err instanceof BaseError) return undefined;
   const type = (err as BodyParserError | undefined)?.type;
