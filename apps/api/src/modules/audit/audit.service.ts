@@ -66,6 +66,13 @@ export async function recordAuditEvent(tx: Tx, event: AuditEventInput): Promise<
   );
 }
 
+/** The keys of `patch` whose value differs from `current`'s (for an "updated" event's detail). */
+export function changedFields<T extends object>(patch: Partial<T>, current: T): string[] {
+  return (Object.keys(patch) as Array<keyof T>)
+    .filter((k) => patch[k] !== undefined && JSON.stringify(patch[k]) !== JSON.stringify(current[k]))
+    .map(String);
+}
+
 function actionFilter(action: string | undefined): AuditFilter["action"] {
   if (!action) return undefined;
   if (!action.includes(".")) return { prefix: `${action}.` };

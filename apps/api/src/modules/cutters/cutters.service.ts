@@ -14,7 +14,7 @@ import {
 import { inTransaction } from "../../db/sequelize.js";
 import { AppError } from "../../http/app-error.js";
 import { roleAtLeast } from "../shops/require-shop-role.js";
-import { recordAuditEvent, type AuditActor } from "../audit/audit.service.js";
+import { changedFields, recordAuditEvent, type AuditActor } from "../audit/audit.service.js";
 import { cuttersToCsv, parseCutterCsv, type UnitChoice } from "./cutters-csv.js";
 import {
   countCutterReferences,
@@ -82,7 +82,7 @@ export async function patchCutter(shopId: string, role: Role, id: string, patch:
       (k) => !descriptive.has(k) && patch[k] !== current[k],
     );
     if (changedNumbers) await flagRecipesOfCutter(shopId, id, tx);
-    const fields = (Object.keys(patch) as Array<keyof CutterBody>).filter((k) => JSON.stringify(patch[k]) !== JSON.stringify(current[k]));
+    const fields = changedFields<CutterBody>(patch, current);
     if (fields.length > 0) {
       await recordAuditEvent(tx, { shopId, actor, action: "cutter.updated", subject: cutterSubject(updated), detail: { fields } });
     }

@@ -10,6 +10,7 @@ import { AppError } from "../../http/app-error.js";
 import { currentShop } from "../../http/locals.js";
 import { inputOf, validate } from "../../http/validate.js";
 import { requireShopRole } from "../shops/require-shop-role.js";
+import { requestActor } from "../audit/audit-actor.js";
 import {
   createMachine,
   defaultsForKind,
@@ -43,7 +44,7 @@ export function registerMachineRoutes(router: Router): void {
   });
 
   router.post("/machines", manager, validate(createInput), async (_req, res) => {
-    res.status(201).json(await createMachine(currentShop(res).shop.id, inputOf(res, createInput).body));
+    res.status(201).json(await createMachine(currentShop(res).shop.id, inputOf(res, createInput).body, requestActor(res)));
   });
 
   // Fixed path before /machines/:machineId.
@@ -57,15 +58,15 @@ export function registerMachineRoutes(router: Router): void {
 
   router.patch("/machines/:machineId", manager, validate(patchInput), async (req, res) => {
     const id = machineId(req.params.machineId);
-    res.json(await patchMachine(currentShop(res).shop.id, id, inputOf(res, patchInput).body));
+    res.json(await patchMachine(currentShop(res).shop.id, id, inputOf(res, patchInput).body, requestActor(res)));
   });
 
   router.delete("/machines/:machineId", manager, async (req, res) => {
-    await deleteMachine(currentShop(res).shop.id, machineId(req.params.machineId));
+    await deleteMachine(currentShop(res).shop.id, machineId(req.params.machineId), requestActor(res));
     res.status(204).end();
   });
 
   router.post("/machines/:machineId/restore", manager, async (req, res) => {
-    res.json(await restoreMachine(currentShop(res).shop.id, machineId(req.params.machineId)));
+    res.json(await restoreMachine(currentShop(res).shop.id, machineId(req.params.machineId), requestActor(res)));
   });
 }

@@ -11,6 +11,7 @@ import {
 import { inTransaction } from "../../db/sequelize.js";
 import { AppError } from "../../http/app-error.js";
 import { machineDefaults } from "./machine-defaults.js";
+import { changedFields, recordAuditEvent, type AuditActor } from "../audit/audit.service.js";
 import {
   countMachineReferences,
   findMachine,
@@ -36,11 +37,16 @@ export function defaultsForKind(kind: MachineKind): MachineBody {
   return machineDefaults(kind);
 }
 
-export function createMachine(shopId: string, body: MachineBody): Promise<Machine> {
+/** The subject of a machine's audit events (ceilings and profile changes name the machine too). */
+export const machineSubject = (m: Pick<Machine, "id" | "name">) => ({ type: "machine" as const, id: m.id, label: m.name });
+
+export function createMachine(shopId: string, body: MachineBody, actor: AuditActor): Promise<Machine> {
   return inTransaction(async (tx) => {
     // The free plan includes one machine; the billing service says so in words when it is used up.
     await assertCanAddMachine(shopId, tx);
-    return insertMachine(shopId, body, tx);
+    const created = await insertMachine(shopId, body, tx);
+    await recordAuditEvent(tx, { shopId, actor, action: "machine.created", subject: machineSubject(created), detail: { kind: created.kind } });
+    return created;
   });
 }
 
@@ -73,7 +79,7 @@ function remainingEstimates(before: MachineBody, after: MachineBody): string[] {
  * Changes the fields sent. `modes`, when sent, replaces the machine's whole mode set; the machine
  * and its modes change together or not at all.
  */
-export async function patchMachine(shopId: string, id: string, patch: MachinePatchBody): Promise<Machine> {
+export async function patchMachine(shopId: string, id: string, patch: MachinePatchBody, actor: AuditActor): Promise<Machine> {
   return inTransaction(async (tx) => {
     const current = await findMachine(shopId, id, tx, true);
     if (!current) throw AppError.notFound("Machine not found.");
@@ -88,12 +94,14 @@ export async function patchMachine(shopId: string, id: string, patch: MachinePat
     if (Object.keys(limits).length > 0) await flagRecipesOfMachine(shopId, id, tx);
     const updated = await findMachine(shopId, id, tx);
     if (!updated) throw AppError.notFound("Machine not found.");
+    const fields = changedFields<MachineBody>(patch, before);
+    if (fields.length > 0) await recordAuditEvent(tx, { shopId, actor, action: "machine.updated", subject: machineSubject(updated), detail: { fields } });
     return updated;
   });
 }
 
 /** Soft delete; refused while assemblies or recipes are on the machine. */
-export async function deleteMachine(shopId: string, id: string): Promise<void> {
+export async function deleteMachine(shopId: string, id: string, actor: AuditActor): Promise<void> {
   await inTransaction(async (tx) => {
     const current = await findMachine(shopId, id, tx, true);
     if (!current || current.deletedAt) throw AppError.notFound("Machine not found.");
@@ -104,10 +112,11 @@ export async function deleteMachine(shopId: string, id: string): Promise<void> {
       throw AppError.conflict(`This machine has ${a} and ${r}; delete or move those before deleting the machine.`);
     }
     await updateMachine(shopId, id, { deletedAt: new Date() }, tx);
+    await recordAuditEvent(tx, { shopId, actor, action: "machine.deleted", subject: machineSubject(current) });
   });
 }
 
-export async function restoreMachine(shopId: string, id: string): Promise<Machine> {
+export async function restoreMachine(shopId: string, id: string, actor: AuditActor): Promise<Machine> {
   return inTransaction(async (tx) => {
     const current = await findMachine(shopId, id, tx, true);
     if (!current) throw AppError.notFound("Machine not found.");
@@ -117,6 +126,7 @@ export async function restoreMachine(shopId: string, id: string): Promise<Machin
     await updateMachine(shopId, id, { deletedAt: null }, tx);
     const restored = await findMachine(shopId, id, tx);
     if (!restored) throw AppError.notFound("Machine not found.");
+    await recordAuditEvent(tx, { shopId, actor, action: "machine.restored", subject: machineSubject(restored) });
     return restored;
   });
 }

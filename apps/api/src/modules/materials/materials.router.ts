@@ -10,6 +10,7 @@ import { AppError } from "../../http/app-error.js";
 import { currentShop } from "../../http/locals.js";
 import { inputOf, validate } from "../../http/validate.js";
 import { requireShopRole } from "../shops/require-shop-role.js";
+import { requestActor } from "../audit/audit-actor.js";
 import {
   copyMaterial,
   createMaterial,
@@ -44,7 +45,7 @@ export function registerMaterialRoutes(router: Router): void {
   });
 
   router.post("/materials", manager, validate(createInput), async (_req, res) => {
-    res.status(201).json(await createMaterial(currentShop(res).shop.id, inputOf(res, createInput).body));
+    res.status(201).json(await createMaterial(currentShop(res).shop.id, inputOf(res, createInput).body, requestActor(res)));
   });
 
   router.get("/materials/:materialId", async (req, res) => {
@@ -53,20 +54,20 @@ export function registerMaterialRoutes(router: Router): void {
 
   router.patch("/materials/:materialId", manager, validate(patchInput), async (req, res) => {
     const id = materialId(req.params.materialId);
-    res.json(await patchMaterial(currentShop(res).shop.id, id, inputOf(res, patchInput).body));
+    res.json(await patchMaterial(currentShop(res).shop.id, id, inputOf(res, patchInput).body, requestActor(res)));
   });
 
   router.delete("/materials/:materialId", manager, async (req, res) => {
-    await deleteMaterial(currentShop(res).shop.id, materialId(req.params.materialId));
+    await deleteMaterial(currentShop(res).shop.id, materialId(req.params.materialId), requestActor(res));
     res.status(204).end();
   });
 
   router.post("/materials/:materialId/copy", manager, validate(copyInput), async (req, res) => {
     const id = materialId(req.params.materialId);
-    res.status(201).json(await copyMaterial(currentShop(res).shop.id, id, inputOf(res, copyInput).body.name));
+    res.status(201).json(await copyMaterial(currentShop(res).shop.id, id, inputOf(res, copyInput).body.name, requestActor(res)));
   });
 
   router.post("/materials/:materialId/restore", manager, async (req, res) => {
-    res.json(await restoreMaterial(currentShop(res).shop.id, materialId(req.params.materialId)));
+    res.json(await restoreMaterial(currentShop(res).shop.id, materialId(req.params.materialId), requestActor(res)));
   });
 }

@@ -17,6 +17,9 @@ import {
   setMaterialDeleted,
   updateMaterial,
 } from "./materials.repository.js";
+import { changedFields, recordAuditEvent, type AuditActor } from "../audit/audit.service.js";
+
+const materialSubject = (m: Pick<Material, "id" | "name">) => ({ type: "material" as const, id: m.id, label: m.name });
 
 const READ_ONLY =
   "Global materials are read-only reference data. Copy it into your shop (POST …/materials/:id/copy) to adjust it.";
@@ -32,8 +35,12 @@ export async function getMaterial(shopId: string, id: string): Promise<Material>
   return material;
 }
 
-export function createMaterial(shopId: string, body: MaterialBody): Promise<Material> {
-  return insertMaterial(shopId, body, null);
+export function createMaterial(shopId: string, body: MaterialBody, actor: AuditActor): Promise<Material> {
+  return inTransaction(async (tx) => {
+    const created = await insertMaterial(shopId, body, null, tx);
+    await recordAuditEvent(tx, { shopId, actor, action: "material.created", subject: materialSubject(created) });
+    return created;
+  });
 }
 
 function bodyOf(m: Material): MaterialBody {
@@ -52,11 +59,21 @@ function bodyOf(m: Material): MaterialBody {
 }
 
 /** Copies a global or own material into the shop, so the shop can adjust it. */
-export async function copyMaterial(shopId: string, id: string, name: string | undefined): Promise<Material> {
+export async function copyMaterial(shopId: string, id: string, name: string | undefined, actor: AuditActor): Promise<Material> {
   const source = await getMaterial(shopId, id);
   if (source.deletedAt) throw AppError.conflict("This material is deleted; restore it before copying it.");
   const copyName = name ?? `${source.name} (shop copy)`.slice(0, 120);
-  return insertMaterial(shopId, { ...bodyOf(source), name: copyName }, source.id);
+  return inTransaction(async (tx) => {
+    const copy = await insertMaterial(shopId, { ...bodyOf(source), name: copyName }, source.id, tx);
+    await recordAuditEvent(tx, {
+      shopId,
+      actor,
+      action: "material.copied",
+      subject: materialSubject(copy),
+      detail: { fromId: source.id, fromName: source.name, fromGlobal: source.readOnly },
+    });
+    return copy;
+  });
 }
 
 async function ownMaterial(shopId: string, id: string): Promise<Material> {
@@ -66,7 +83,7 @@ async function ownMaterial(shopId: string, id: string): Promise<Material> {
 }
 
 /** Changes only the fields sent; the merged material is validated as a whole. */
-export async function patchMaterial(shopId: string, id: string, patch: MaterialPatchBody): Promise<Material> {
+export async function patchMaterial(shopId: string, id: string, patch: MaterialPatchBody, actor: AuditActor): Promise<Material> {
   return inTransaction(async (tx) => {
     const current = await ownMaterial(shopId, id);
     const merged = materialBodySchema.parse({ ...bodyOf(current), ...patch });
@@ -74,13 +91,15 @@ export async function patchMaterial(shopId: string, id: string, patch: MaterialP
     if (!updated) throw AppError.notFound("Material not found.");
     const { name: _n, sourceNote: _s, ...numbers } = patch;
     if (Object.keys(numbers).length > 0) await flagRecipesOfMaterial(shopId, id, tx);
+    const fields = changedFields<MaterialBody>(patch, bodyOf(current));
+    if (fields.length > 0) await recordAuditEvent(tx, { shopId, actor, action: "material.updated", subject: materialSubject(updated), detail: { fields } });
     return updated;
   });
 }
 
-export async function deleteMaterial(shopId: string, id: string): Promise<void> {
+export async function deleteMaterial(shopId: string, id: string, actor: AuditActor): Promise<void> {
   await inTransaction(async (tx) => {
-    await ownMaterial(shopId, id);
+    const current = await ownMaterial(shopId, id);
     const recipes = await countRecipesUsingMaterial(shopId, id, tx);
     if (recipes > 0) {
       throw AppError.conflict(
@@ -88,12 +107,16 @@ export async function deleteMaterial(shopId: string, id: string): Promise<void> 
       );
     }
     await setMaterialDeleted(shopId, id, true, tx);
+    await recordAuditEvent(tx, { shopId, actor, action: "material.deleted", subject: materialSubject(current) });
   });
 }
 
-export async function restoreMaterial(shopId: string, id: string): Promise<Material> {
-  await ownMaterial(shopId, id);
-  const restored = await setMaterialDeleted(shopId, id, false);
-  if (!restored) throw AppError.notFound("Material not found.");
-  return restored;
+export async function restoreMaterial(shopId: string, id: string, actor: AuditActor): Promise<Material> {
+  const current = await ownMaterial(shopId, id);
+  return inTransaction(async (tx) => {
+    const restored = await setMaterialDeleted(shopId, id, false, tx);
+    if (!restored) throw AppError.notFound("Material not found.");
+    if (current.deletedAt) await recordAuditEvent(tx, { shopId, actor, action: "material.restored", subject: materialSubject(restored) });
+    return restored;
+  });
 }
