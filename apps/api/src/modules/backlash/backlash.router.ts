@@ -3,6 +3,7 @@ import { backlashReadingBodySchema } from "@ringdown/contracts";
 import { currentShop, currentUser } from "../../http/locals.js";
 import { inputOf, validate } from "../../http/validate.js";
 import { requireShopRole } from "../shops/require-shop-role.js";
+import { requestActor } from "../audit/audit-actor.js";
 import { idParam } from "../vibration/ids.js";
 import { addBacklash, listBacklash, removeBacklash } from "./backlash.service.js";
 
@@ -19,11 +20,11 @@ export function registerBacklashRoutes(router: Router): void {
 
   router.post(base, manager, validate(createInput), async (req, res) => {
     const machineId = idParam(req.params.machineId, "Machine");
-    res.status(201).json(await addBacklash(currentShop(res).shop.id, machineId, inputOf(res, createInput).body, currentUser(res).id));
+    res.status(201).json(await addBacklash(currentShop(res).shop.id, machineId, inputOf(res, createInput).body, { ...requestActor(res), userId: currentUser(res).id }));
   });
 
   router.delete(`${base}/:readingId`, manager, async (req, res) => {
     const machineId = idParam(req.params.machineId, "Machine");
-    res.json(await removeBacklash(currentShop(res).shop.id, machineId, idParam(req.params.readingId, "Backlash reading")));
+    res.json(await removeBacklash(currentShop(res).shop.id, machineId, idParam(req.params.readingId, "Backlash reading"), requestActor(res)));
   });
 }

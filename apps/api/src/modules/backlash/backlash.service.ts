@@ -4,6 +4,7 @@ import { AppError } from "../../http/app-error.js";
 import { updateMachine } from "../machines/machines.repository.js";
 import { machineForRead, machineForUpdate, measurementDate } from "../vibration/machine-access.js";
 import { applyRecheck, valueChange } from "../vibration/recheck.js";
+import { recordAuditEvent, type AuditActor } from "../audit/audit.service.js";
 import {
   deleteBacklashReading,
   findBacklashReading,
@@ -32,21 +33,31 @@ export async function listBacklash(shopId: string, machineId: string): Promise<{
   return { items: await listBacklashReadings(shopId, machineId) };
 }
 
-export async function addBacklash(shopId: string, machineId: string, body: BacklashReadingBody, userId: string): Promise<BacklashReadingMutation> {
+/** How a reading is named in the audit log. */
+function readingEvent(machine: Machine, r: BacklashReading) {
+  return {
+    subject: { type: "backlash_reading" as const, id: r.id, label: `${machine.name}: ${r.axis.toUpperCase()} axis` },
+    detail: { machineId: machine.id, axis: r.axis, backlashMm: r.backlashMm },
+  };
+}
+
+export async function addBacklash(shopId: string, machineId: string, body: BacklashReadingBody, actor: AuditActor & { userId: string }): Promise<BacklashReadingMutation> {
   const measuredAt = measurementDate(body.measuredAt);
   return inTransaction(async (tx) => {
     const machine = await machineForUpdate(shopId, machineId, tx);
-    const reading = await insertBacklashReading(shopId, machineId, { ...body, measuredAt }, userId, tx);
+    const reading = await insertBacklashReading(shopId, machineId, { ...body, measuredAt }, actor.userId, tx);
+    await recordAuditEvent(tx, { shopId, actor, action: "backlash_reading.added", ...readingEvent(machine, reading) });
     return followLatest(shopId, machine, reading.axis, reading, tx);
   });
 }
 
-export async function removeBacklash(shopId: string, machineId: string, id: string): Promise<BacklashReadingMutation> {
+export async function removeBacklash(shopId: string, machineId: string, id: string, actor: AuditActor): Promise<BacklashReadingMutation> {
   return inTransaction(async (tx) => {
     const machine = await machineForUpdate(shopId, machineId, tx);
     const reading = await findBacklashReading(shopId, machineId, id, tx);
     if (!reading) throw AppError.notFound("Backlash reading not found.");
     await deleteBacklashReading(shopId, machineId, id, tx);
+    await recordAuditEvent(tx, { shopId, actor, action: "backlash_reading.deleted", ...readingEvent(machine, reading) });
     return followLatest(shopId, machine, reading.axis, reading, tx);
   });
 }

@@ -3,6 +3,7 @@ import { ceilingsBodySchema } from "@ringdown/contracts";
 import { currentShop } from "../../http/locals.js";
 import { inputOf, validate } from "../../http/validate.js";
 import { requireShopRole } from "../shops/require-shop-role.js";
+import { requestActor } from "../audit/audit-actor.js";
 import { idParam } from "../vibration/ids.js";
 import { getCeilings, putCeilings } from "./ceilings.service.js";
 
@@ -16,6 +17,6 @@ export function registerCeilingRoutes(router: Router): void {
   });
   router.put("/machines/:machineId/ceilings", manager, validate(putInput), async (req, res) => {
     const machineId = idParam(req.params.machineId, "Machine");
-    res.json(await putCeilings(currentShop(res).shop.id, machineId, inputOf(res, putInput).body));
+    res.json(await putCeilings(currentShop(res).shop.id, machineId, inputOf(res, putInput).body, requestActor(res)));
   });
 }

@@ -4,6 +4,8 @@ import { inTransaction } from "../../db/sequelize.js";
 import { updateMachine } from "../machines/machines.repository.js";
 import { machineForRead, machineForUpdate } from "../vibration/machine-access.js";
 import { flagMachineRecipes } from "../vibration/recheck.js";
+import { recordAuditEvent, type AuditActor } from "../audit/audit.service.js";
+import { machineSubject } from "../machines/machines.service.js";
 
 const toCeilings = (m: Machine): Ceilings => ({
   machineId: m.id,
@@ -20,7 +22,7 @@ export async function getCeilings(shopId: string, machineId: string): Promise<Ce
  * Replaces the machine's ceilings. Any actual change marks the machine's recipes for a re-check,
  * as an edit of the machine's limits does; saving the same values marks nothing.
  */
-export async function putCeilings(shopId: string, machineId: string, body: z.output<typeof ceilingsBodySchema>): Promise<CeilingsMutation> {
+export async function putCeilings(shopId: string, machineId: string, body: z.output<typeof ceilingsBodySchema>, actor: AuditActor): Promise<CeilingsMutation> {
   return inTransaction(async (tx) => {
     const machine = await machineForUpdate(shopId, machineId, tx);
     const before = toCeilings(machine);
@@ -40,6 +42,9 @@ export async function putCeilings(shopId: string, machineId: string, body: z.out
         tx,
       );
       recipesFlagged = await flagMachineRecipes(shopId, machineId, tx);
+      const { machineId: _b, ...was } = before;
+      const { machineId: _a, ...now } = after;
+      await recordAuditEvent(tx, { shopId, actor, action: "machine.ceilings_changed", subject: machineSubject(machine), detail: { before: was, after: now, recipesFlagged } });
     }
     return { ...after, recipesFlagged };
   });

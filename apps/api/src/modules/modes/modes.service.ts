@@ -5,6 +5,7 @@ import { inTransaction, type Tx } from "../../db/sequelize.js";
 import { AppError } from "../../http/app-error.js";
 import { machineForRead, machineForUpdate, measurementDate } from "../vibration/machine-access.js";
 import { applyRecheck, modePresenceChange, valueChange } from "../vibration/recheck.js";
+import { recordAuditEvent, type AuditActor } from "../audit/audit.service.js";
 import { deleteMode, findMode, insertMode, listModes, touchMachine, updateMode, type NewMode } from "./modes.repository.js";
 
 /** Same limit as the machine record's mode list. */
@@ -41,12 +42,24 @@ export async function addModeInTx(shopId: string, machineId: string, mode: NewMo
 
 type ParsedModeBody = z.output<typeof modeBodySchema>;
 
+/** How a mode is named in the audit log. */
+function modeSubject(machineName: string, mode: MachineModeRecord) {
+  return { type: "mode" as const, id: mode.id, label: `${machineName}: ${mode.direction.toUpperCase()} ${Number(mode.frequencyHz.toPrecision(4))} Hz` };
+}
+const modeFacts = (m: Pick<MachineModeRecord, "direction" | "frequencyHz" | "dampingRatio" | "stiffnessNPerMm" | "source">) => ({
+  direction: m.direction,
+  frequencyHz: m.frequencyHz,
+  dampingRatio: m.dampingRatio,
+  stiffnessNPerMm: m.stiffnessNPerMm,
+  source: m.source,
+});
+
 export async function listMachineModes(shopId: string, machineId: string): Promise<MachineModeList> {
   await machineForRead(shopId, machineId);
   return { items: await listModes(shopId, machineId) };
 }
 
-export async function createMode(shopId: string, machineId: string, body: ParsedModeBody): Promise<ModeMutation> {
+export async function createMode(shopId: string, machineId: string, body: ParsedModeBody, actor: AuditActor): Promise<ModeMutation> {
   return inTransaction(async (tx) => {
     const machine = await machineForUpdate(shopId, machineId, tx);
     let mode: NewMode;
@@ -82,13 +95,21 @@ export async function createMode(shopId: string, machineId: string, body: Parsed
         measuredAt: body.measuredAt ? measurementDate(body.measuredAt) : new Date(),
       };
     }
-    return addModeInTx(shopId, machineId, mode, tx);
+    const added = await addModeInTx(shopId, machineId, mode, tx);
+    await recordAuditEvent(tx, {
+      shopId,
+      actor,
+      action: "mode.added",
+      subject: modeSubject(machine.name, added.mode),
+      detail: { machineId, ...modeFacts(added.mode) },
+    });
+    return added;
   });
 }
 
-export async function patchMode(shopId: string, machineId: string, id: string, patch: ModePatchBody): Promise<ModeMutation> {
+export async function patchMode(shopId: string, machineId: string, id: string, patch: ModePatchBody, actor: AuditActor): Promise<ModeMutation> {
   return inTransaction(async (tx) => {
-    await machineForUpdate(shopId, machineId, tx);
+    const machine = await machineForUpdate(shopId, machineId, tx);
     const current = await findMode(shopId, machineId, id, tx);
     if (!current) throw AppError.notFound("Mode not found.");
     const next: NewMode = {
@@ -112,17 +133,31 @@ export async function patchMode(shopId: string, machineId: string, id: string, p
         : [modePresenceChange("mode_removed", current.direction, current.frequencyHz), modePresenceChange("mode_added", next.direction, next.frequencyHz)];
     const mode = await updateMode(shopId, machineId, id, next, tx);
     await touchMachine(shopId, machineId, tx);
+    await recordAuditEvent(tx, {
+      shopId,
+      actor,
+      action: "mode.updated",
+      subject: modeSubject(machine.name, mode),
+      detail: { machineId, before: modeFacts(current), after: modeFacts(mode) },
+    });
     return { mode, ...(await applyRecheck(shopId, machineId, changes, tx)) };
   });
 }
 
-export async function removeMode(shopId: string, machineId: string, id: string): Promise<ModeMutation> {
+export async function removeMode(shopId: string, machineId: string, id: string, actor: AuditActor): Promise<ModeMutation> {
   return inTransaction(async (tx) => {
-    await machineForUpdate(shopId, machineId, tx);
+    const machine = await machineForUpdate(shopId, machineId, tx);
     const current = await findMode(shopId, machineId, id, tx);
     if (!current) throw AppError.notFound("Mode not found.");
     await deleteMode(shopId, machineId, id, tx);
     await touchMachine(shopId, machineId, tx);
+    await recordAuditEvent(tx, {
+      shopId,
+      actor,
+      action: "mode.deleted",
+      subject: modeSubject(machine.name, current),
+      detail: { machineId, ...modeFacts(current) },
+    });
     const direction: Axis = current.direction;
     return { mode: current, ...(await applyRecheck(shopId, machineId, [modePresenceChange("mode_removed", direction, current.frequencyHz)], tx)) };
   });

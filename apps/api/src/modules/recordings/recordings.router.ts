@@ -6,6 +6,7 @@ import { currentShop, currentUser } from "../../http/locals.js";
 import { fieldErrors, inputOf, validate } from "../../http/validate.js";
 import type { Storage } from "../../storage/storage.js";
 import { requireShopRole } from "../shops/require-shop-role.js";
+import { requestActor } from "../audit/audit-actor.js";
 import { idParam } from "../vibration/ids.js";
 import {
   acceptDialRpm,
@@ -87,7 +88,7 @@ export function registerRecordingRoutes(router: Router, deps: RecordingRouteDeps
     const machineId = idParam(req.params.machineId, "Machine");
     const parsed = recordingUploadFieldsSchema.safeParse(req.body ?? {});
     if (!parsed.success) throw AppError.validation("Some fields need attention.", fieldErrors(parsed.error));
-    const recording = await uploadRecording(currentShop(res).shop.id, machineId, parsed.data, fileOf(req), currentUser(res).id, deps.storage);
+    const recording = await uploadRecording(currentShop(res).shop.id, machineId, parsed.data, fileOf(req), { ...requestActor(res), userId: currentUser(res).id }, deps.storage);
     res.status(202).location(`${req.baseUrl}${base.replace(":machineId", machineId)}/${recording.id}`).json({ recording });
   });
 
@@ -110,17 +111,17 @@ export function registerRecordingRoutes(router: Router, deps: RecordingRouteDeps
 
   router.delete(`${base}/:recordingId`, manager, async (req, res) => {
     const machineId = idParam(req.params.machineId, "Machine");
-    await deleteRecording(currentShop(res).shop.id, machineId, idParam(req.params.recordingId, "Recording"), deps.storage);
+    await deleteRecording(currentShop(res).shop.id, machineId, idParam(req.params.recordingId, "Recording"), deps.storage, requestActor(res));
     res.status(204).end();
   });
 
   router.post("/recordings/:recordingId/accept-mode", manager, validate(acceptModeInput), async (req, res) => {
     const id = idParam(req.params.recordingId, "Recording");
-    res.status(201).json(await acceptMode(currentShop(res).shop.id, id, inputOf(res, acceptModeInput).body));
+    res.status(201).json(await acceptMode(currentShop(res).shop.id, id, inputOf(res, acceptModeInput).body, requestActor(res)));
   });
 
   router.post("/recordings/:recordingId/accept-dial-rpm", manager, validate(acceptDialInput), async (req, res) => {
     const id = idParam(req.params.recordingId, "Recording");
-    res.json(await acceptDialRpm(currentShop(res).shop.id, id, inputOf(res, acceptDialInput).body.dialSetting));
+    res.json(await acceptDialRpm(currentShop(res).shop.id, id, inputOf(res, acceptDialInput).body.dialSetting, requestActor(res)));
   });
 }

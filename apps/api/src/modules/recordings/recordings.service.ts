@@ -19,6 +19,7 @@ import { addModeInTx } from "../modes/modes.service.js";
 import { findMode } from "../modes/modes.repository.js";
 import { machineForRead, machineForUpdate } from "../vibration/machine-access.js";
 import { inspectRecording, RecordingFileError } from "./recording-decoder.js";
+import { recordAuditEvent, type AuditActor } from "../audit/audit.service.js";
 import {
   deleteRecordingRow,
   findRecording,
@@ -56,7 +57,7 @@ export async function uploadRecording(
   machineId: string,
   fields: UploadFields,
   file: UploadedRecordingFile | undefined,
-  userId: string,
+  actor: AuditActor & { userId: string },
   storage: Storage,
 ): Promise<RecordingSummary> {
   const machine = await machineForRead(shopId, machineId);
@@ -112,11 +113,18 @@ export async function uploadRecording(
           direction: fields.direction ?? null,
           dialSetting: fields.dialSetting ?? null,
           note: fields.note ?? "",
-          createdBy: userId,
+          createdBy: actor.userId,
         },
         tx,
       );
       await enqueueAnalysis({ recordingId: id }, tx);
+      await recordAuditEvent(tx, {
+        shopId,
+        actor,
+        action: "recording.uploaded",
+        subject: recordingSubject(machine.name, row),
+        detail: { machineId, kind: row.kind, format: row.format, sizeBytes: row.sizeBytes },
+      });
       return row;
     });
     return publicSummary(created);
@@ -124,6 +132,11 @@ export async function uploadRecording(
     await storage.delete(storageKey).catch(() => undefined);
     throw error;
   }
+}
+
+/** How a recording is named in the audit log. */
+function recordingSubject(machineName: string, r: { id: string; originalName: string }) {
+  return { type: "recording" as const, id: r.id, label: `${machineName}: ${r.originalName}` };
 }
 
 export async function machineRecordings(shopId: string, machineId: string, kind: RecordingKind | undefined): Promise<RecordingList> {
@@ -157,12 +170,19 @@ export async function recordingFile(
 }
 
 /** Deletes the recording and its file; modes accepted from it stay (they lose the link). */
-export async function deleteRecording(shopId: string, machineId: string, id: string, storage: Storage): Promise<void> {
+export async function deleteRecording(shopId: string, machineId: string, id: string, storage: Storage, actor: AuditActor): Promise<void> {
   const key = await inTransaction(async (tx) => {
-    await machineForRead(shopId, machineId, tx);
+    const machine = await machineForRead(shopId, machineId, tx);
     const recording = await findRecording(shopId, id, tx, true);
     if (!recording || recording.machineId !== machineId) throw AppError.notFound("Recording not found.");
     await deleteRecordingRow(shopId, id, tx);
+    await recordAuditEvent(tx, {
+      shopId,
+      actor,
+      action: "recording.deleted",
+      subject: recordingSubject(machine.name, recording),
+      detail: { machineId, kind: recording.kind },
+    });
     return recording.storageKey;
   });
   // A worker that already picked the job up finds no row and stops.
@@ -173,7 +193,7 @@ export async function deleteRecording(shopId: string, machineId: string, id: str
  * Adds the mode proposed by a finished tap test (source measured) or frequency-response fit
  * (source fitted) to the machine's modes, then applies the re-check rule.
  */
-export async function acceptMode(shopId: string, id: string, body: z.output<typeof acceptModeBodySchema>): Promise<AcceptModeResponse> {
+export async function acceptMode(shopId: string, id: string, body: z.output<typeof acceptModeBodySchema>, actor: AuditActor): Promise<AcceptModeResponse> {
   return inTransaction(async (tx) => {
     const recording = await findRecording(shopId, id, tx, true);
     if (!recording) throw AppError.notFound("Recording not found.");
@@ -186,7 +206,7 @@ export async function acceptMode(shopId: string, id: string, body: z.output<type
     if (recording.acceptedModeId && (await findMode(shopId, recording.machineId, recording.acceptedModeId, tx))) {
       throw AppError.conflict("The mode from this recording is already among the machine's modes.");
     }
-    await machineForUpdate(shopId, recording.machineId, tx);
+    const machine = await machineForUpdate(shopId, recording.machineId, tx);
     const proposed = recording.results.proposedMode;
     if (proposed.stiffnessNPerMm === null) {
       throw AppError.conflict("No stiffness is known in that direction; add dial-indicator readings first.");
@@ -210,13 +230,27 @@ export async function acceptMode(shopId: string, id: string, body: z.output<type
       tx,
     );
     await updateRecording(recording.id, { acceptedModeId: outcome.mode.id }, tx);
+    await recordAuditEvent(tx, {
+      shopId,
+      actor,
+      action: "recording.mode_accepted",
+      subject: recordingSubject(machine.name, recording),
+      detail: {
+        machineId: machine.id,
+        modeId: outcome.mode.id,
+        direction: outcome.mode.direction,
+        frequencyHz: outcome.mode.frequencyHz,
+        dampingRatio: outcome.mode.dampingRatio,
+        stiffnessNPerMm: outcome.mode.stiffnessNPerMm,
+      },
+    });
     const { results: _r, ...summary } = recording;
     return { ...outcome, recording: { ...publicSummary(summary), acceptedModeId: outcome.mode.id } };
   });
 }
 
 /** Sets a dial setting's rpm to the speed measured with the spindle running free, and marks it measured. */
-export async function acceptDialRpm(shopId: string, id: string, dialSetting: string | undefined): Promise<AcceptDialRpmResponse> {
+export async function acceptDialRpm(shopId: string, id: string, dialSetting: string | undefined, actor: AuditActor): Promise<AcceptDialRpmResponse> {
   return inTransaction(async (tx) => {
     const recording = await findRecording(shopId, id, tx, true);
     if (!recording) throw AppError.notFound("Recording not found.");
@@ -238,6 +272,13 @@ export async function acceptDialRpm(shopId: string, id: string, dialSetting: str
       tx,
     );
     await updateRecording(recording.id, { dialRpmApplied: true }, tx);
+    await recordAuditEvent(tx, {
+      shopId,
+      actor,
+      action: "recording.dial_rpm_accepted",
+      subject: recordingSubject(machine.name, recording),
+      detail: { machineId: machine.id, dialSetting: label, previousRpm, rpm },
+    });
     const { results: _r, ...summary } = recording;
     return { recording: { ...publicSummary(summary), dialRpmApplied: true }, dialSetting: { label, rpm, measured: true, previousRpm } };
   });

@@ -3,6 +3,7 @@ import { stiffnessMapQuerySchema, stiffnessReadingBodySchema } from "@ringdown/c
 import { currentShop, currentUser } from "../../http/locals.js";
 import { inputOf, validate } from "../../http/validate.js";
 import { requireShopRole } from "../shops/require-shop-role.js";
+import { requestActor } from "../audit/audit-actor.js";
 import { idParam } from "../vibration/ids.js";
 import { addReading, listReadings, removeReading, stiffnessMap } from "./stiffness.service.js";
 
@@ -23,12 +24,12 @@ export function registerStiffnessRoutes(router: Router): void {
 
   router.post(base, manager, validate(createInput), async (req, res) => {
     const machineId = idParam(req.params.machineId, "Machine");
-    res.status(201).json(await addReading(currentShop(res).shop.id, machineId, inputOf(res, createInput).body, currentUser(res).id));
+    res.status(201).json(await addReading(currentShop(res).shop.id, machineId, inputOf(res, createInput).body, { ...requestActor(res), userId: currentUser(res).id }));
   });
 
   router.delete(`${base}/:readingId`, manager, async (req, res) => {
     const machineId = idParam(req.params.machineId, "Machine");
-    res.json(await removeReading(currentShop(res).shop.id, machineId, idParam(req.params.readingId, "Stiffness reading")));
+    res.json(await removeReading(currentShop(res).shop.id, machineId, idParam(req.params.readingId, "Stiffness reading"), requestActor(res)));
   });
 
   router.get("/machines/:machineId/stiffness-map", validate(mapInput), async (req, res) => {

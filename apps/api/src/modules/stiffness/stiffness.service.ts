@@ -14,6 +14,7 @@ import { AppError } from "../../http/app-error.js";
 import { updateMachine } from "../machines/machines.repository.js";
 import { machineForRead, machineForUpdate, measurementDate } from "../vibration/machine-access.js";
 import { applyRecheck, valueChange } from "../vibration/recheck.js";
+import { recordAuditEvent, type AuditActor } from "../audit/audit.service.js";
 import { deleteStiffnessReading, findStiffnessReading, insertStiffnessReading, listStiffnessReadings } from "./stiffness.repository.js";
 
 const pointsOf = (readings: StiffnessReading[]): StiffnessPoint[] =>
@@ -73,22 +74,32 @@ export async function listReadings(shopId: string, machineId: string): Promise<S
   return { items: await listStiffnessReadings(shopId, machineId) };
 }
 
-export async function addReading(shopId: string, machineId: string, body: StiffnessReadingBody, userId: string): Promise<StiffnessReadingMutation> {
+/** How a reading is named in the audit log. */
+function readingEvent(machine: Machine, r: StiffnessReading) {
+  return {
+    subject: { type: "stiffness_reading" as const, id: r.id, label: `${machine.name}: ${r.direction.toUpperCase()} at X ${r.xMm} mm, Y ${r.yMm} mm` },
+    detail: { machineId: machine.id, direction: r.direction, xMm: r.xMm, yMm: r.yMm, zMm: r.zMm, stiffnessNPerMm: r.stiffnessNPerMm },
+  };
+}
+
+export async function addReading(shopId: string, machineId: string, body: StiffnessReadingBody, actor: AuditActor & { userId: string }): Promise<StiffnessReadingMutation> {
   const measuredAt = measurementDate(body.measuredAt);
   return inTransaction(async (tx) => {
     const machine = await machineForUpdate(shopId, machineId, tx);
     checkEnvelope(body, machine);
-    const reading = await insertStiffnessReading(shopId, machineId, { ...body, measuredAt }, userId, tx);
+    const reading = await insertStiffnessReading(shopId, machineId, { ...body, measuredAt }, actor.userId, tx);
+    await recordAuditEvent(tx, { shopId, actor, action: "stiffness_reading.added", ...readingEvent(machine, reading) });
     return { reading, ...(await followReadings(shopId, machine, reading.direction, tx)) };
   });
 }
 
-export async function removeReading(shopId: string, machineId: string, id: string): Promise<StiffnessReadingMutation> {
+export async function removeReading(shopId: string, machineId: string, id: string, actor: AuditActor): Promise<StiffnessReadingMutation> {
   return inTransaction(async (tx) => {
     const machine = await machineForUpdate(shopId, machineId, tx);
     const reading = await findStiffnessReading(shopId, machineId, id, tx);
     if (!reading) throw AppError.notFound("Stiffness reading not found.");
     await deleteStiffnessReading(shopId, machineId, id, tx);
+    await recordAuditEvent(tx, { shopId, actor, action: "stiffness_reading.deleted", ...readingEvent(machine, reading) });
     return { reading, ...(await followReadings(shopId, machine, reading.direction, tx)) };
   });
 }
