@@ -25,6 +25,7 @@ describe("GET /api/health with the database unreachable", () => {
     expect(res.body).toEqual({
       error: { code: "service_unavailable", message: "The database is unavailable. Try again in a moment." },
     });
+    expect(res.headers["retry-after"]).toBe("5");
     expect(String(log.mock.calls[0]?.[0])).toMatch(/ECONNREFUSED/);
     log.mockRestore();
   });
