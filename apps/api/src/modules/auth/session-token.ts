@@ -1,4 +1,4 @@
-import { randomUUID } from "node:crypto";
+import { createSecretKey, randomUUID, type KeyObject } from "node:crypto";
 import jwt from "jsonwebtoken";
 import { AppError } from "../../http/app-error.js";
 
@@ -40,11 +40,19 @@ export function signSessionToken(
   return { token, tokenId, expiresAt: new Date(exp * 1000) };
 }
 
+// jsonwebtoken turns a string secret into a key on every call, first trying it as a PEM public key
+// and catching the failure: about a millisecond per request. The key object is made once instead.
+let verifyKey: { secret: string; key: KeyObject } | undefined;
+function keyFor(secret: string): KeyObject {
+  if (verifyKey?.secret !== secret) verifyKey = { secret, key: createSecretKey(Buffer.from(secret, "utf8")) };
+  return verifyKey.key;
+}
+
 /** Verifies signature, algorithm, issuer and expiry; throws `unauthenticated` otherwise. */
 export function verifySessionToken(token: string, secret: string): SessionClaims {
   let payload: unknown;
   try {
-    payload = jwt.verify(token, secret, { algorithms: [ALGORITHM], issuer: ISSUER });
+    payload = jwt.verify(token, keyFor(secret), { algorithms: [ALGORITHM], issuer: ISSUER });
   } catch (error) {
     if (error instanceof jwt.TokenExpiredError) {
       throw AppError.unauthenticated("Your session has expired. Sign in again.");
