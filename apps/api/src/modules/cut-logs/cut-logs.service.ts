@@ -12,8 +12,10 @@ import type { Storage, StoredObject } from "../../storage/storage.js";
 import { findRecipe } from "../recipes/recipes.repository.js";
 import { findCutLog, findPhoto, insertCutLog, insertPhoto, listRecipeCutLogs, listShopCutLogs } from "./cut-logs.repository.js";
 import { PHOTO_TYPES, sniffPhotoType } from "./photo-type.js";
+import { recordAuditEvent, type AuditActor } from "../audit/audit.service.js";
 
-export interface Actor {
+/** The caller: their role decides what they may see; the rest names them in the audit log. */
+export interface Actor extends AuditActor {
   userId: string;
   role: Role;
 }
@@ -83,6 +85,13 @@ export async function createCutLog(
         stored.push(storageKey);
         await insertPhoto(shopId, logId, { id: photoId, storageKey, contentType: photo.contentType, sizeBytes: photo.bytes.length }, tx);
       }
+      await recordAuditEvent(tx, {
+        shopId,
+        actor,
+        action: "cut_log.created",
+        subject: { type: "cut_log", id: logId, label: `${recipe.name}, revision ${recipe.revision}` },
+        detail: { recipeId: recipe.id, outcome: body.outcome, photos: checked.length },
+      });
       return logId;
     });
   } catch (error) {

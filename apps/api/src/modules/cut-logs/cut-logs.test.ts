@@ -215,7 +215,7 @@ describe("POST recipes/:id/cut-logs (multipart with photos)", () => {
       createCutLog(shopId, draft.id, { ...body, outcome: "clean", feedOverridePct: null }, [
         { originalName: "one.png", bytes: PNG },
         { originalName: "two.jpg", bytes: JPEG },
-      ], { userId: people.programmer.userId, role: "programmer" }, flaky),
+      ], { userId: people.programmer.userId, role: "programmer", name: "Test programmer", ip: null }, flaky),
     ).rejects.toThrow("disk full");
     expect(puts).toBe(2);
     expect(await countRows(draft.id)).toEqual(before);

@@ -12,6 +12,7 @@ import { AppError } from "../../http/app-error.js";
 import { currentShop } from "../../http/locals.js";
 import { inputOf, validate } from "../../http/validate.js";
 import { requireShopRole } from "../shops/require-shop-role.js";
+import { requestActor } from "../audit/audit-actor.js";
 import {
   copyRecipe,
   createRecipe,
@@ -39,7 +40,7 @@ export function recipeIdOf(req: Request): string {
 /** The shop and the caller as the services need them. */
 export function shopAndActor(res: Response): { shopId: string; actor: Actor } {
   const { shop, membership } = currentShop(res);
-  return { shopId: shop.id, actor: { userId: membership.userId, role: membership.role } };
+  return { shopId: shop.id, actor: { ...requestActor(res), userId: membership.userId, role: membership.role } };
 }
 
 const listInput = { query: recipeListQuerySchema };

@@ -18,6 +18,7 @@ import type {
 import { AppError } from "../../http/app-error.js";
 import { inTransaction, type Tx } from "../../db/sequelize.js";
 import { roleAtLeast } from "../shops/require-shop-role.js";
+import { recordAuditEvent, type AuditActor } from "../audit/audit.service.js";
 import { computePlan } from "../recommendations/recommendations.service.js";
 import { findAssemblyRecords } from "../recommendations/planning.repository.js";
 import {
@@ -39,10 +40,13 @@ import {
   type RevisionRecord,
 } from "./recipes.repository.js";
 
-export interface Actor {
+/** The caller: their role decides what they may do; the rest names them in the audit log. */
+export interface Actor extends AuditActor {
   userId: string;
   role: Role;
 }
+
+const recipeSubject = (r: { id: string; name: string }) => ({ type: "recipe" as const, id: r.id, label: r.name });
 
 const notFound = () => AppError.notFound("Recipe not found.");
 /** "a draft", "an approved"… */
@@ -96,6 +100,7 @@ export async function createRecipe(shopId: string, body: RecipeBody, actor: Acto
     const { machineName: _m, ...state } = await computeState(shopId, body, tx, { refuseRetiredCutter: true });
     const recipeId = await insertRecipe(shopId, state, actor.userId, tx);
     await insertRevision(shopId, recipeId, 1, state, "Created", actor.userId, tx);
+    await recordAuditEvent(tx, { shopId, actor, action: "recipe.created", subject: recipeSubject({ id: recipeId, name: state.name }), detail: { status: "draft" } });
     return recipeId;
   });
   return (await findRecipe(shopId, id))!;
@@ -189,6 +194,14 @@ export async function reviseRecipe(shopId: string, id: string, change: RecipeCha
     await insertTransition(shopId, id, current.status, "trial", comment, actor.userId, tx);
     await setRecipeStatus(shopId, id, "trial", comment, tx);
   }
+  const backToTrial = settled && (cutChanged(current, next) || moved !== "");
+  await recordAuditEvent(tx, {
+    shopId,
+    actor,
+    action: "recipe.revised",
+    subject: recipeSubject({ id, name: next.name }),
+    detail: { revision, note: changeNote, ...(backToTrial ? { statusFrom: current.status, statusTo: "trial" } : {}) },
+  });
   return { changed: true };
 }
 
@@ -328,6 +341,13 @@ export async function transitionRecipe(shopId: string, id: string, to: RecipeSta
     }
     await insertTransition(shopId, id, current.status, to, comment, actor.userId, tx);
     await setRecipeStatus(shopId, id, to, comment || null, tx);
+    await recordAuditEvent(tx, {
+      shopId,
+      actor,
+      action: "recipe.status_changed",
+      subject: recipeSubject({ id, name: current.name }),
+      detail: { from: current.status, to, comment: comment || undefined },
+    });
   });
   return (await findRecipe(shopId, id))!;
 }
@@ -357,6 +377,7 @@ export async function deleteRecipe(shopId: string, id: string, actor: Actor): Pr
     if (!current) throw notFound();
     requireDeleteRight(current.status, actor);
     await setRecipeDeleted(shopId, id, new Date(), tx);
+    await recordAuditEvent(tx, { shopId, actor, action: "recipe.deleted", subject: recipeSubject({ id, name: current.name }), detail: { status: current.status } });
   });
 }
 
@@ -369,6 +390,7 @@ export async function restoreDeletedRecipe(shopId: string, id: string, actor: Ac
     }
     requireDeleteRight(current.status, actor);
     await setRecipeDeleted(shopId, id, null, tx);
+    await recordAuditEvent(tx, { shopId, actor, action: "recipe.restored", subject: recipeSubject({ id, name: current.name }), detail: { status: current.status } });
   });
   return (await findRecipe(shopId, id))!;
 }
@@ -393,6 +415,13 @@ export async function copyRecipe(shopId: string, id: string, target: { assemblyI
       actor.userId,
       tx,
     );
+    await recordAuditEvent(tx, {
+      shopId,
+      actor,
+      action: "recipe.copied",
+      subject: recipeSubject({ id: recipeId, name: state.name }),
+      detail: { fromId: source.id, fromName: source.name, fromRevision: source.revision, machine: machineName },
+    });
     return recipeId;
   });
   return (await findRecipe(shopId, newId))!;

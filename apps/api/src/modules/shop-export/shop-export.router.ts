@@ -4,7 +4,8 @@ import { AppError } from "../../http/app-error.js";
 import { currentShop } from "../../http/locals.js";
 import { inputOf, validate } from "../../http/validate.js";
 import { requireShopRole } from "../shops/require-shop-role.js";
-import { exportShopCsv, exportShopJson } from "./shop-export.service.js";
+import { exportShopCsv, exportShopJson, recordShopExport } from "./shop-export.service.js";
+import { requestActor } from "../audit/audit-actor.js";
 
 const jsonInput = { query: shopExportQuerySchema };
 
@@ -25,6 +26,7 @@ export function registerShopExportRoutes(router: Router): void {
     inputOf(res, jsonInput);
     const { shop } = currentShop(res);
     const body = await exportShopJson(shop);
+    await recordShopExport(shop, requestActor(res), "json");
     res.setHeader("Content-Disposition", `attachment; filename="ringdown-${slug(shop.name)}-${today()}.json"`);
     res.json(body);
   });
@@ -35,6 +37,7 @@ export function registerShopExportRoutes(router: Router): void {
     if (!entity.success) throw AppError.notFound("No such export. Use cutters.csv, assemblies.csv, recipes.csv or cut-logs.csv.");
     const { shop } = currentShop(res);
     const text = await exportShopCsv(shop.id, entity.data);
+    await recordShopExport(shop, requestActor(res), entity.data);
     res.setHeader("Content-Type", "text/csv; charset=utf-8");
     res.setHeader("Content-Disposition", `attachment; filename="ringdown-${slug(shop.name)}-${entity.data}-${today()}.csv"`);
     res.send(text);

@@ -16,6 +16,18 @@ import {
 } from "../recommendations/planning.repository.js";
 import { listAllRecipes, listShopRevisions, listShopTransitions, type RevisionRecord } from "../recipes/recipes.repository.js";
 import { toRevisionResponses } from "../recipes/recipes.service.js";
+import { inTransaction } from "../../db/sequelize.js";
+import { recordAuditEvent, type AuditActor } from "../audit/audit.service.js";
+
+/**
+ * Records in the audit log that `actor` took the shop's data out (`file`: "json" or an entity's
+ * CSV). Called once the export is built, before it is sent.
+ */
+export async function recordShopExport(shop: { id: string; name: string }, actor: AuditActor, file: "json" | ShopExportEntity): Promise<void> {
+  await inTransaction((tx) =>
+    recordAuditEvent(tx, { shopId: shop.id, actor, action: "shop.exported", subject: { type: "shop", id: shop.id, label: shop.name }, detail: { file } }),
+  );
+}
 
 export async function exportShopJson(shop: { id: string; name: string }): Promise<ShopExport> {
   const shopId = shop.id;
