@@ -147,6 +147,10 @@ describe("upgrading through the provider's checkout", () => {
     const other = await createPerson(app, "confirm-other");
     const foreign = await other.agent.post(`/api/shops/${other.shopId}/billing/checkout/confirm`).send({ sessionId });
     expect(foreign.status).toBe(404);
+    // An id the provider never issued is the caller's mistake (404), not a provider outage (503).
+    const unknown = await owner.agent.post(`/api/shops/${owner.shopId}/billing/checkout/confirm`).send({ sessionId: "cs_test_never_issued" });
+    expect(unknown.status).toBe(404);
+    expect(errorOf(unknown.body)).toEqual({ code: "not_found", message: "No checkout of this shop has that id." });
   });
 
   it("an abandoned checkout changes nothing, and buying fewer seats than in use is refused", async () => {

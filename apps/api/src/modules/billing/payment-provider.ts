@@ -190,7 +190,13 @@ function createPaymentProvider(config: BillingConfig): PaymentProvider {
 
     retrieveCheckout: (sessionId) =>
       call(async () => {
-        const session = await stripe.checkout.sessions.retrieve(sessionId);
+        const session = await stripe.checkout.sessions.retrieve(sessionId).catch((error: unknown) => {
+          // An id the provider does not know came from the caller: not found, not an outage.
+          if (error instanceof Stripe.errors.StripeInvalidRequestError && error.statusCode === 404) {
+            throw AppError.notFound("No checkout of this shop has that id.");
+          }
+          throw error;
+        });
         const sub = session.subscription;
         const customer = session.customer;
         return {
