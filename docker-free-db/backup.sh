@@ -26,10 +26,7 @@ PROJECT_DIR="$(cd "$SCRIPT_DIR/.." && pwd)"
 SCRIPT_NAME="backup.sh"
 source "$SCRIPT_DIR/lib.sh"
 
-usage() {
-  sed -n '4,21p' "${BASH_SOURCE[0]}" | sed 's/^# \{0,1\}//' >&2
-  exit 1
-}
+usage() { show_usage 4 21; }
 
 DATABASE_URL_ARG=""
 OUT=""

@@ -1,6 +1,13 @@
 # Helpers shared by docker-free-db/*.sh (sourced, not run). The sourcing script sets SCRIPT_NAME
 # (for messages) and PROJECT_DIR (the repository root) first.
 
+# show_usage <first line> <last line>: prints that part of the calling script's header comment as
+# its usage text, then exits 1.
+show_usage() {
+  sed -n "$1,$2p" "$0" | sed 's/^# \{0,1\}//' >&2
+  exit 1
+}
+
 say() { printf '%s: %s\n' "$SCRIPT_NAME" "$*" >&2; }
 die() { printf '%s: error: %s\n' "$SCRIPT_NAME" "$*" >&2; exit 1; }
 

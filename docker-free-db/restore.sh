@@ -24,10 +24,7 @@ PROJECT_DIR="$(cd "$SCRIPT_DIR/.." && pwd)"
 SCRIPT_NAME="restore.sh"
 source "$SCRIPT_DIR/lib.sh"
 
-usage() {
-  sed -n '4,19p' "${BASH_SOURCE[0]}" | sed 's/^# \{0,1\}//' >&2
-  exit 1
-}
+usage() { show_usage 4 19; }
 
 DUMP=""
 NAME_ARG=""

@@ -6,7 +6,6 @@
  */
 import { spawn, type ChildProcess } from "node:child_process";
 import { mkdtemp, rm } from "node:fs/promises";
-import { createServer } from "node:net";
 import { tmpdir } from "node:os";
 import path from "node:path";
 import pg from "pg";
@@ -14,6 +13,7 @@ import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { apiErrorSchema, cutterSchema, healthSchema, meSchema } from "@ringdown/contracts";
 import { repoRoot } from "../config/env.js";
 import { cutterBody } from "../modules/machines/library-test-fixtures.js";
+import { freeTcpPort } from "../test/free-port.js";
 import { runScript } from "../test/run-script.js";
 
 /** Longest a client waits for any one answer [ms]: an answer later than this counts as a hang. */
@@ -40,17 +40,6 @@ let baseUrl = "";
 let databaseUrl = "";
 
 const pgScript = (command: string) => runScript("docker-free-db/pg.sh", [command, "dev"], pgEnv);
-
-function freeTcpPort(): Promise<number> {
-  return new Promise((resolve, reject) => {
-    const probe = createServer();
-    probe.once("error", reject);
-    probe.listen(0, "127.0.0.1", () => {
-      const address = probe.address();
-      probe.close(() => (typeof address === "object" && address ? resolve(address.port) : reject(new Error("no port"))));
-    });
-  });
-}
 
 /** Starts a fresh cluster on a random port in 5460-5499, trying another port when one is taken. */
 async function startOwnCluster(): Promise<number> {
