@@ -4,8 +4,8 @@ import { shopApiPath, toSearch } from "@/lib/active-shop";
 import { apiRequest } from "@/lib/api-client";
 import { recipesRoot } from "./keys";
 
-/** What the list asks the server for (filters, sort and page; the server does the work). */
-export type RecipeListParams = Omit<RecipeListQuery, "deleted">;
+/** What the list asks the server for (filters, sort and page; the server does the work); `deleted` lists the bin. */
+export type RecipeListParams = Omit<RecipeListQuery, "deleted"> & { deleted?: boolean };
 
 export function getRecipes(shopId: string, query: RecipeListParams, signal?: AbortSignal) {
   return apiRequest(shopApiPath(shopId, `/recipes${toSearch({ ...query })}`), { schema: recipePageSchema, signal });

@@ -22,6 +22,7 @@ import { EditRecipeSheet } from "./edit-dialog";
 import { RevisionHistory, TransitionHistory } from "./history";
 import { LadderSection } from "./ladder-section";
 import { RecipeNumbers, RecipeSetup } from "./recipe-summary";
+import type { DeletedRecipeState } from "./recipes-page";
 import { RecipeStatusBadge } from "./status-badge";
 import { TransitionDialog } from "./transition-dialog";
 
@@ -330,9 +331,13 @@ export function RecipeDetail({
           danger
           pending={remove.isPending}
           error={remove.isError ? remove.error.message : null}
-          onConfirm={() => remove.mutate(undefined, { onSuccess: () => void navigate("/recipes") })}
+          onConfirm={() =>
+            remove.mutate(undefined, {
+              onSuccess: () => void navigate("/recipes", { state: { deletedRecipe: { id: recipe.id, name: recipe.name } } satisfies DeletedRecipeState }),
+            })
+          }
         >
-          <p>The recipe goes to the shop's bin with its history and cut log; a programmer or tooling manager can restore it.</p>
+          <p>The recipe goes to the shop's bin with its history and cut log; it can be restored from the recipe list (tick “Deleted recipes”).</p>
         </ConfirmDialog>
       )}
     </div>

@@ -9,18 +9,22 @@ import {
   type UnitSystem,
 } from "@ringdown/contracts";
 import type { ColumnDef, PaginationState, SortingState, Updater } from "@tanstack/react-table";
-import { ClipboardList, RefreshCw, Search } from "lucide-react";
+import { ClipboardList, RefreshCw, Search, Trash2 } from "lucide-react";
 import { useCallback, useEffect, useId, useMemo, useState } from "react";
-import { Link, useSearchParams } from "react-router-dom";
+import { Link, useLocation, useNavigate, useSearchParams } from "react-router-dom";
 import { Badge } from "@/components/ui/badge";
+import { Button } from "@/components/ui/button";
 import { DataTable } from "@/components/ui/data-table";
 import { EmptyState } from "@/components/ui/empty-state";
 import { Input } from "@/components/ui/field";
 import { MeasureValue } from "@/components/ui/measure";
+import { Notice } from "@/components/ui/page-header";
 import { Select, type SelectOption } from "@/components/ui/select";
 import { measures } from "@/components/ui/units";
 import { useRecipes, type RecipeListParams } from "../api/get-recipes";
+import { useRestoreDeletedRecipe } from "../api/restore-deleted-recipe";
 import { operationLabels, statusLabels } from "../labels";
+import { canDeleteRecipe } from "../life-cycle";
 import { RecipeStatusBadge } from "./status-badge";
 
 type SortKey = (typeof recipeSortFields)[number];
@@ -41,6 +45,18 @@ interface Filters {
   cutterId: string;
   operation: string;
   status: string;
+  /** The shop's bin instead of its live recipes. */
+  deleted: boolean;
+}
+
+/** What the recipe page hands over after moving a recipe to the bin, so the list can offer Undo. */
+export interface DeletedRecipeState {
+  deletedRecipe: { id: string; name: string };
+}
+
+function deletedRecipeOf(state: unknown): DeletedRecipeState["deletedRecipe"] | null {
+  const value = (state as Partial<DeletedRecipeState> | null)?.deletedRecipe;
+  return value && typeof value.id === "string" && typeof value.name === "string" ? value : null;
 }
 
 /** Filters, sort and page live in the address: a view can be bookmarked, shared and gone back to. */
@@ -65,15 +81,18 @@ function useRecipeListState() {
     cutterId: id("cutterId"),
     operation: operation.success ? operation.data : "",
     status: status.success ? status.data : "",
+    deleted: search.get("deleted") === "true",
   };
 
   const update = useCallback(
-    (changes: Record<string, string | number | undefined>, resetPage = true) => {
+    (changes: Record<string, string | number | boolean | undefined>, resetPage = true) => {
       setSearch(
-        (prev) => {
-          const next = new URLSearchParams(prev);
+        () => {
+          // From the address as it is now, not as it was at the last render: a search typed just
+          // before another filter changes lands after it (debounced) and must not undo it.
+          const next = new URLSearchParams(window.location.search);
           for (const [key, value] of Object.entries(changes)) {
-            if (value === undefined || value === "") next.delete(key);
+            if (value === undefined || value === "" || value === false) next.delete(key);
             else next.set(key, String(value));
           }
           if (resetPage) next.delete("page");
@@ -96,6 +115,7 @@ function useRecipeListState() {
     ...(filters.cutterId ? { cutterId: filters.cutterId } : {}),
     ...(operation.success ? { operation: operation.data } : {}),
     ...(status.success ? { status: status.data } : {}),
+    ...(filters.deleted ? { deleted: true } : {}),
   };
   return { filters, params, update, sorting: [{ id: sort, desc: order === "desc" }] as SortingState };
 }
@@ -112,8 +132,28 @@ const dateFormat = new Intl.DateTimeFormat("en-GB", { day: "numeric", month: "sh
  */
 export function RecipesPage({ shopId, role, system, options }: { shopId: string; role: Role; system: UnitSystem; options: RecipeFilterOptions }) {
   const { filters, params, update, sorting } = useRecipeListState();
-  const list = useRecipes(shopId, params);
   const operator = role === "operator";
+  // Operators never see the bin (the server refuses it too).
+  const bin = filters.deleted && !operator;
+  const list = useRecipes(shopId, bin ? params : { ...params, deleted: undefined });
+  const restore = useRestoreDeletedRecipe(shopId);
+  const [notice, setNotice] = useState<{ tone: "ok" | "limit"; text: string; undo?: { id: string; name: string } } | null>(null);
+
+  // A recipe just deleted from its page: say so here, with Undo, and forget it on reload.
+  const location = useLocation();
+  const navigate = useNavigate();
+  const justDeleted = deletedRecipeOf(location.state);
+  useEffect(() => {
+    if (!justDeleted) return;
+    setNotice({ tone: "ok", text: `${justDeleted.name} was moved to the bin.`, undo: justDeleted });
+    void navigate({ search: location.search }, { replace: true, state: null });
+  }, [justDeleted?.id]);
+
+  const onRestore = (recipe: { id: string; name: string }) =>
+    restore.mutate(recipe.id, {
+      onSuccess: (restored) => setNotice({ tone: "ok", text: `${restored.name} is back in the shop's recipes.` }),
+      onError: (error) => setNotice({ tone: "limit", text: `${recipe.name} could not be restored: ${error.message}` }),
+    });
 
   const columns = useMemo<Array<ColumnDef<Recipe, unknown>>>(
     () => [
@@ -125,13 +165,18 @@ export function RecipesPage({ shopId, role, system, options }: { shopId: string;
           const r = row.original;
           return (
             <div className="min-w-52">
-              {/* The link covers the whole row (the row is positioned), so a click anywhere opens it. */}
-              <Link
-                to={`/recipes/${r.id}`}
-                className="font-medium text-ink after:absolute after:inset-0 after:content-[''] hover:text-brand hover:underline focus-visible:outline-none focus-visible:after:outline-2 focus-visible:after:outline-brand"
-              >
-                {r.name}
-              </Link>
+              {r.deletedAt ? (
+                // A binned recipe has no page to open until it is restored.
+                <span className="font-medium text-ink">{r.name}</span>
+              ) : (
+                // The link covers the whole row (the row is positioned), so a click anywhere opens it.
+                <Link
+                  to={`/recipes/${r.id}`}
+                  className="font-medium text-ink after:absolute after:inset-0 after:content-[''] hover:text-brand hover:underline focus-visible:outline-none focus-visible:after:outline-2 focus-visible:after:outline-brand"
+                >
+                  {r.name}
+                </Link>
+              )}
               <div className="mt-0.5 flex flex-wrap items-center gap-1.5 text-xs text-muted">
                 <span>{operationLabels[r.operation]}</span>
                 <span aria-hidden>·</span>
@@ -140,7 +185,13 @@ export function RecipesPage({ shopId, role, system, options }: { shopId: string;
                 <span>
                   {r.cutLogCount} {r.cutLogCount === 1 ? "cut" : "cuts"} logged
                 </span>
-                {r.needsRecheck && (
+                {r.deletedAt && (
+                  <Badge tone="limit">
+                    <Trash2 className="size-3" aria-hidden />
+                    Deleted <time dateTime={r.deletedAt}>{dateFormat.format(new Date(r.deletedAt))}</time>
+                  </Badge>
+                )}
+                {!r.deletedAt && r.needsRecheck && (
                   <Badge tone="near" title="The machine, cutter, assembly or material changed since this recipe was computed">
                     <RefreshCw className="size-3" aria-hidden />
                     Needs recheck
@@ -204,8 +255,25 @@ export function RecipesPage({ shopId, role, system, options }: { shopId: string;
   return (
     <div className="flex flex-col gap-4">
       <RecipeFilters value={filters} onChange={(changes) => update({ ...changes })} options={options} operator={operator} />
+      {notice && (
+        <Notice tone={notice.tone} onDismiss={() => setNotice(null)}>
+          <span>{notice.text}</span>
+          {notice.undo && (
+            <Button
+              size="sm"
+              variant="secondary"
+              className="ml-3"
+              pending={restore.isPending}
+              onClick={() => onRestore(notice.undo!)}
+              aria-label={`Undo: restore ${notice.undo.name}`}
+            >
+              Undo
+            </Button>
+          )}
+        </Notice>
+      )}
       <DataTable
-        label="Recipes"
+        label={bin ? "Deleted recipes" : "Recipes"}
         columns={columns}
         data={list.data?.items}
         getRowId={(r) => r.id}
@@ -213,7 +281,17 @@ export function RecipesPage({ shopId, role, system, options }: { shopId: string;
         isFetching={list.isFetching && !list.isPending}
         error={list.isError ? list.error : null}
         onRetry={() => void list.refetch()}
-        rowClassName={(r) => (r.status === "retired" ? "relative text-muted" : "relative")}
+        rowClassName={(r) => (r.status === "retired" || r.deletedAt ? "relative text-muted" : "relative")}
+        rowActions={
+          bin
+            ? (r) =>
+                canDeleteRecipe(role, r.status) ? (
+                  <Button size="sm" variant="secondary" onClick={() => onRestore(r)} disabled={restore.isPending} aria-label={`Restore ${r.name}`}>
+                    Restore
+                  </Button>
+                ) : null
+            : undefined
+        }
         server={{
           rowCount: list.data?.total ?? 0,
           sorting,
@@ -228,7 +306,11 @@ export function RecipesPage({ shopId, role, system, options }: { shopId: string;
           },
         }}
         empty={
-          filtered ? (
+          bin ? (
+            <EmptyState icon={Trash2} title={filtered ? "No deleted recipe matches these filters" : "No deleted recipes"}>
+              <p>Deleted recipes wait here, with their history and cut log, until they are restored.</p>
+            </EmptyState>
+          ) : filtered ? (
             <EmptyState icon={Search} title="No recipe matches these filters">
               <p>Clear a filter or search for something shorter.</p>
             </EmptyState>
@@ -278,7 +360,7 @@ function RecipeFilters({
     return () => clearTimeout(timer);
   }, [text, value.q, onChange]);
 
-  const select = (key: keyof Filters, label: string, opts: readonly SelectOption[], any: string, width = "w-48") => (
+  const select = (key: Exclude<keyof Filters, "deleted">, label: string, opts: readonly SelectOption[], any: string, width = "w-48") => (
     <div className={`flex ${width} flex-col gap-1.5`}>
       <label htmlFor={`${id}-${key}`} className="text-xs font-medium text-muted">
         {label}
@@ -323,6 +405,12 @@ function RecipeFilters({
           "Any status",
           "w-36",
         )}
+      {!operator && (
+        <label className="flex h-10 cursor-pointer items-center gap-2 text-sm text-ink">
+          <input type="checkbox" checked={value.deleted} onChange={(e) => onChange({ deleted: e.target.checked })} className="size-4 accent-brand" />
+          Deleted recipes
+        </label>
+      )}
     </div>
   );
 }
