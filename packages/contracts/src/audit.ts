@@ -122,7 +122,7 @@ export const auditEventListQuerySchema = paginationQuerySchema
     from: instant.optional(),
     to: instant.optional(),
   })
-  .refine((q) => !q.from || !q.to || auditRangeStart(q.from) <= auditRangeEnd(q.to), {
+  .refine((q) => !q.from || !q.to || auditRangeStart(q.from) < auditRangeEnd(q.to), {
     message: "The start of the period must not be after its end",
     path: ["to"],
   });

@@ -54,10 +54,12 @@ const opts = (tx: Tx | undefined, bind: unknown[]) => ({ bind, type: QueryTypes.
 
 /**
  * Locks the shop row until the transaction ends, so seat checks and the changes they allow
- * (an invitation, a role change, a member removed) happen one at a time per shop.
+ * (an invitation, a role change, a member removed) happen one at a time per shop. NO KEY UPDATE,
+ * not UPDATE: rows inserted elsewhere that reference the shop (an audit event, a machine) take a
+ * KEY SHARE lock on it for their foreign key, and must not wait for, or deadlock with, this one.
  */
 export async function lockShop(shopId: string, tx: Tx): Promise<boolean> {
-  const rows = await getSequelize().query(`SELECT id FROM shops WHERE id = $1 FOR UPDATE`, opts(tx, [shopId]));
+  const rows = await getSequelize().query(`SELECT id FROM shops WHERE id = $1 FOR NO KEY UPDATE`, opts(tx, [shopId]));
   return rows.length > 0;
 }
 

@@ -65,9 +65,9 @@ export async function listMembershipsOfUser(userId: string): Promise<MembershipR
 }
 
 /** Renames the shop `shopId` (scoped by id: the caller's shop only). */
-/** The shop's name, its row locked until `tx` ends; null when there is no such shop. */
+/** The shop's name, its row locked (NO KEY UPDATE, as `lockShop`) until `tx` ends; null when there is no such shop. */
 export async function lockShopName(shopId: string, tx: Tx): Promise<string | null> {
-  const row = await ShopModel.findByPk(shopId, { attributes: ["name"], transaction: tx, lock: tx.LOCK.UPDATE });
+  const row = await ShopModel.findByPk(shopId, { attributes: ["name"], transaction: tx, lock: tx.LOCK.NO_KEY_UPDATE });
   return row?.name ?? null;
 }
 
