@@ -134,7 +134,7 @@ const CUTS: Array<{ operation: Operation; axialDepthMm: number; radialDepthMm: n
   { operation: "finish", axialDepthMm: 6, radialDepthMm: 0.2 },
 ];
 
-const PARTS = [
+export const PARTS = [
   "Fixture plate", "Sign blank", "Drawer front", "Mounting bracket", "Enclosure lid", "Jig base", "Motor mount",
   "Spoilboard surfacing", "Cable tray cover", "Display plinth", "Gasket plate", "Letter set", "Bearing cap",
   "Clamp jaw", "Hinge block", "Nameplate", "Vacuum pod", "Side rail", "Spacer", "Front panel",

@@ -6,7 +6,8 @@
 import autocannon from "autocannon";
 import { spawn, type ChildProcess } from "node:child_process";
 import { once } from "node:events";
-import { cpus, loadavg } from "node:os";
+import { cpus, loadavg, tmpdir } from "node:os";
+import path from "node:path";
 import { fileURLToPath } from "node:url";
 
 export const apiDir = fileURLToPath(new URL("../", import.meta.url));
@@ -82,7 +83,7 @@ export function startApi(databaseUrl: string, port: number): Promise<RunningServ
       SEED_DEMO: "false",
       // Recording analysis is not part of these workloads.
       RUN_WORKER: "false",
-      STORAGE_DIR: `${apiDir}.bench-storage`,
+      STORAGE_DIR: path.join(tmpdir(), "ringdown-bench-storage"),
       // Sign-in of every bench account from one address.
       LOGIN_MAX_PER_IP: "10000",
     },

@@ -16,6 +16,7 @@ import { recipeListQuerySchema, type RecipeListQuery } from "@ringdown/contracts
 import { getSequelize } from "../src/db/sequelize.js";
 import { recipeListSql } from "../src/modules/recipes/recipes.repository.js";
 import { BENCH_PASSWORD, closeBenchDatabase, prepareBenchDatabase, type BenchShop } from "./bench-data.js";
+import { listKind, listQuery } from "./request-mix.js";
 import {
   benchSeconds,
   machineLine,
@@ -42,32 +43,6 @@ const data = await prepareBenchDatabase({ fresh: process.env.RINGDOWN_BENCH_FRES
 const shops = data.shops;
 
 // ---------------------------------------------------------------- the request mix
-
-const FREE_TEXT = ["bracket", "job 1234", "4711", "clamp", "air blast", "6 mm", "acrylic", "compression", "nameplate", "chatter"];
-
-/** One list query as the web app's recipe list sends it, drawn from a mix of what people do. */
-function listQuery(random: () => number, shop: BenchShop): Record<string, string> {
-  const r = random();
-  const pageSize = random() < 0.8 ? "25" : "50";
-  if (r < 0.3) return {}; // the list as it opens: newest first
-  if (r < 0.4) return { page: String(2 + Math.floor(random() * 4)), pageSize };
-  if (r < 0.5) return { status: pick(random, ["approved", "trial", "proven", "draft"]) };
-  if (r < 0.58) return { machineId: pick(random, shop.machineIds), pageSize };
-  if (r < 0.65) return { materialId: pick(random, shop.materialIds), sort: "name", order: "asc" };
-  if (r < 0.7) return { operation: pick(random, ["slot", "profile", "pocket", "finish"]), sort: "rpm", order: pick(random, ["asc", "desc"]) };
-  if (r < 0.85) return { q: pick(random, FREE_TEXT) };
-  if (r < 0.92) return { sort: pick(random, ["machineName", "materialName", "cutterName", "name", "status"]), order: pick(random, ["asc", "desc"]) };
-  if (r < 0.95) return { cutterId: pick(random, shop.cutterIds), status: "approved" };
-  return { page: String(50 + Math.floor(random() * 150)) }; // deep in the list
-}
-
-function kindOf(query: Record<string, string>): string {
-  if (query.q) return "free text";
-  if (query.machineId || query.materialId || query.cutterId || query.operation || query.status) return "filter";
-  if (query.sort) return "sort";
-  if (query.page) return "later page";
-  return "first page";
-}
 
 // ---------------------------------------------------------------- plans
 
@@ -139,7 +114,7 @@ function mix(readers: Reader[], bare: boolean): () => PlannedRequest {
     const search = new URLSearchParams(query).toString();
     const path = `${bare ? "" : "/api"}/shops/${reader.shop.id}/recipes${search ? `?${search}` : ""}`;
     const headers: Record<string, string> = bare ? (reader.operator ? { "x-approved-only": "1" } : {}) : { cookie: reader.cookie };
-    return { kind: kindOf(query), method: "GET", path, headers };
+    return { kind: listKind(query), method: "GET", path, headers };
   };
 }
 
