@@ -50,6 +50,7 @@ export const routes: RouteObject[] = [
             lazy: page(() => import("./routes/app/machine-recording"), (m) => m.MachineRecordingRoute),
           },
           { path: "team", lazy: page(() => import("./routes/app/team"), (m) => m.TeamRoute) },
+          { path: "team/history", lazy: page(() => import("./routes/app/team-history"), (m) => m.TeamHistoryRoute) },
           { path: "billing", lazy: page(() => import("./routes/app/billing"), (m) => m.BillingRoute) },
           { path: "*", lazy: page(() => import("./routes/not-found"), (m) => m.NotFoundRoute) },
         ],

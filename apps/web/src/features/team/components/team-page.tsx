@@ -148,6 +148,10 @@ function TeamForShop({ shopId, shopName, isOwner, userId }: { shopId: string; sh
                   <Link to="/billing" className="font-medium text-brand underline underline-offset-4">
                     Billing
                   </Link>
+                  {" · "}
+                  <Link to="/team/history" className="font-medium text-brand underline underline-offset-4">
+                    Change history
+                  </Link>
                 </>
               )}
             </p>

@@ -1,0 +1,5 @@
+import { ChangeHistoryPage } from "@/features/audit/components/change-history-page";
+
+export function TeamHistoryRoute() {
+  return <ChangeHistoryPage />;
+}
