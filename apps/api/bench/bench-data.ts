@@ -367,7 +367,10 @@ async function insertRecipes(sequelize: Sequelize): Promise<void> {
   // Template recipes in the first shop, computed by the engine through the recipe service.
   const [first] = await select<{ shop_id: string }>(`SELECT shop_id FROM bench_shops WHERE idx = 0`);
   const shopId = first!.shop_id;
-  const [author] = await select<{ user_id: string }>(`SELECT user_id FROM memberships WHERE shop_id = :shopId AND role = 'programmer' LIMIT 1`, { shopId });
+  const [author] = await select<{ user_id: string; name: string }>(
+    `SELECT m.user_id, u.name FROM memberships m JOIN users u ON u.id = m.user_id WHERE m.shop_id = :shopId AND m.role = 'programmer' LIMIT 1`,
+    { shopId },
+  );
   const assemblies = await select<{ id: string; machine_name: string; diameter_mm: number }>(
     `SELECT a.id, m.name AS machine_name, c.diameter_mm FROM assemblies a JOIN machines m ON m.id = a.machine_id JOIN cutters c ON c.id = a.cutter_id
       WHERE a.shop_id = :shopId ORDER BY a.holder`,
@@ -402,7 +405,7 @@ async function insertRecipes(sequelize: Sequelize): Promise<void> {
             },
             notes: "",
           },
-          { userId: author!.user_id, role: "programmer" },
+          { userId: author!.user_id, role: "programmer", name: author!.name, ip: null },
         );
         templates++;
       }

@@ -151,31 +151,37 @@ export async function runLoad(
   const all = newStats("all");
   const byKind = new Map<string, KindStats>();
   const url = new URL(baseUrl);
-  const instance = autocannon({
-    url: baseUrl,
-    connections,
-    duration: seconds,
-    timeout: 30,
-    // Paced (open) load when given: requests per second over all connections; otherwise each
-    // connection sends its next request as soon as the last one is answered (saturation).
-    ...(options.overallRate ? { overallRate: options.overallRate } : {}),
-    requests: [
+  let instance: autocannon.Instance | undefined;
+  const done = new Promise<autocannon.Result>((resolve, reject) => {
+    instance = autocannon(
       {
-        setupRequest: (req, context) => {
-          const next = plan();
-          (context as { kind?: string }).kind = next.kind;
-          const headers: Record<string, string> = { ...(req.headers as Record<string, string>), ...next.headers, host: url.host };
-          let body: string | undefined;
-          if (next.body !== undefined) {
-            body = JSON.stringify(next.body);
-            headers["content-type"] = "application/json";
-          }
-          return { ...req, method: next.method, path: next.path, headers, body };
-        },
+        url: baseUrl,
+        connections,
+        duration: seconds,
+        timeout: 30,
+        // Paced (open) load when given: requests per second over all connections; otherwise each
+        // connection sends its next request as soon as the last one is answered (saturation).
+        ...(options.overallRate ? { overallRate: options.overallRate } : {}),
+        requests: [
+          {
+            setupRequest: (req, context) => {
+              const next = plan();
+              (context as { kind?: string }).kind = next.kind;
+              const headers: Record<string, string> = { ...(req.headers as Record<string, string>), ...next.headers, host: url.host };
+              let body: string | undefined;
+              if (next.body !== undefined) {
+                body = JSON.stringify(next.body);
+                headers["content-type"] = "application/json";
+              }
+              return { ...req, method: next.method, path: next.path, headers, body };
+            },
+          },
+        ],
       },
-    ],
+      (error, result) => (error ? reject(error) : resolve(result)),
+    );
   });
-  instance.on("response", (client: unknown, statusCode: number, _bytes: number, responseTime: number) => {
+  instance!.on("response", (client: unknown, statusCode: number, _bytes: number, responseTime: number) => {
     const kind = String((client as { requestIterator: { context: { kind?: string } } }).requestIterator.context.kind ?? "?");
     let stats = byKind.get(kind);
     if (!stats) byKind.set(kind, (stats = newStats(kind)));
@@ -185,7 +191,7 @@ export async function runLoad(
       s.latencies.push(responseTime);
     }
   });
-  const result = await instance;
+  const result = await done;
   return {
     seconds,
     requests: all.count,
