@@ -328,7 +328,7 @@ function FrfResultsView({ results, recording, mayEdit, accept, system }: { resul
       <Card>
         <CardHeader title="Frequency response" description="Magnitude of the receptance |G|, with the fitted mode marked." />
         <CardBody className="flex flex-col gap-3">
-          <SpectrumChart spectrum={results.spectrum} peaks={[]} marks={[{ frequencyHz: f.frequencyHz, label: "Fitted mode" }]} magnitudeLabel="|G| [mm/N] (log)" />
+          <SpectrumChart spectrum={results.spectrum} peaks={[]} marks={[{ frequencyHz: f.frequencyHz, label: "Fitted mode" }]} magnitudeLabel="|G| [mm/N] (log)" magnitudeUnit="mm/N" />
           <SpectrumLegend guides={{ spindle: false, tooth: false, mark: "Fitted mode" }} peaks={false} chatter={false} />
         </CardBody>
       </Card>

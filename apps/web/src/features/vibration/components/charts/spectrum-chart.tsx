@@ -15,6 +15,8 @@ export interface SpectrumChartProps {
   marks?: Array<{ frequencyHz: number; label: string }>;
   /** Axis label of the magnitude, with its unit */
   magnitudeLabel: string;
+  /** Unit of the magnitude for the pointer read-out; without one it is read as relative. */
+  magnitudeUnit?: string;
   height?: number;
 }
 
@@ -30,7 +32,7 @@ const peakColours: Record<RecordingPeakResult["kind"], string> = {
  * spindle and tooth-passing harmonics as faint vertical guides, detected peaks as markers
  * (chatter candidates in the limit colour). Drag to zoom, double-click to reset.
  */
-export default function SpectrumChart({ spectrum, peaks, spindleHarmonicsHz = [], toothPassingHarmonicsHz = [], marks = [], magnitudeLabel, height = 320 }: SpectrumChartProps) {
+export default function SpectrumChart({ spectrum, peaks, spindleHarmonicsHz = [], toothPassingHarmonicsHz = [], marks = [], magnitudeLabel, magnitudeUnit, height = 320 }: SpectrumChartProps) {
   const readout = useRef<HTMLParagraphElement>(null);
 
   const data = useMemo<uPlot.AlignedData>(() => {
@@ -134,12 +136,12 @@ export default function SpectrumChart({ spectrum, peaks, spindleHarmonicsHz = []
             }
             const f = (u.data[0] as unknown as Float64Array)[i]!;
             const m = (u.data[1] as unknown as Float64Array)[i]!;
-            el.textContent = `${formatNumber(f, { significantDigits: 5 })} Hz: ${formatNumber(m, { significantDigits: 3 })}`;
+            el.textContent = `${formatNumber(f, { significantDigits: 5 })} Hz: ${formatNumber(m, { significantDigits: 3 })}${magnitudeUnit ? ` ${magnitudeUnit}` : " (relative)"}`;
           },
         ],
       },
     };
-  }, [peaks, spindleHarmonicsHz, toothPassingHarmonicsHz, marks, magnitudeLabel, height]);
+  }, [peaks, spindleHarmonicsHz, toothPassingHarmonicsHz, marks, magnitudeLabel, magnitudeUnit, height]);
 
   const { container } = useUplot(options, data, height);
   return (
