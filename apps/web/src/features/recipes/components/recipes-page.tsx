@@ -353,6 +353,9 @@ function RecipeFilters({
   const id = useId();
   const [text, setText] = useState(value.q);
   useEffect(() => setText(value.q), [value.q]);
+  // Ticked at once, while the address (a transition) catches up.
+  const [bin, setBin] = useState(value.deleted);
+  useEffect(() => setBin(value.deleted), [value.deleted]);
   useEffect(() => {
     if (text === value.q) return;
     // Wait for a pause in typing before asking the server.
@@ -407,7 +410,15 @@ function RecipeFilters({
         )}
       {!operator && (
         <label className="flex h-10 cursor-pointer items-center gap-2 text-sm text-ink">
-          <input type="checkbox" checked={value.deleted} onChange={(e) => onChange({ deleted: e.target.checked })} className="size-4 accent-brand" />
+          <input
+            type="checkbox"
+            checked={bin}
+            onChange={(e) => {
+              setBin(e.target.checked);
+              onChange({ deleted: e.target.checked });
+            }}
+            className="size-4 accent-brand"
+          />
           Deleted recipes
         </label>
       )}
