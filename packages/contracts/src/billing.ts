@@ -86,7 +86,9 @@ export const checkoutStartedSchema = z.object({ url: z.string().url(), sessionId
 export type CheckoutStarted = z.infer<typeof checkoutStartedSchema>;
 
 /** POST /api/shops/:shopId/billing/checkout/confirm: after the provider sent the owner back. */
-export const confirmCheckoutBodySchema = z.object({ sessionId: z.string().min(1).max(255) });
+export const confirmCheckoutBodySchema = z.object({
+  sessionId: z.string().min(1).max(255).regex(/^[A-Za-z0-9_]+$/, "This is not a checkout id"),
+});
 export type ConfirmCheckoutBody = z.infer<typeof confirmCheckoutBodySchema>;
 
 /** POST /api/shops/:shopId/billing/seats: the new number of paid seats. */

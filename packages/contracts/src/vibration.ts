@@ -77,8 +77,11 @@ export const stiffnessReadingBodySchema = z.object({
   /** Direction of the push and of the measured deflection */
   direction: axisSchema,
   forceN: finite("force").gt(0, "Force must be more than 0 N: push with a known load (spring scale or weights)").max(5000, "Force must be at most 5000 N"),
+  // At least 0.0001 mm: stiffness = F/δ stays within 5·10⁷ N/mm (5000 N / 0.0001 mm) instead of
+  // running off to infinity for a vanishing deflection.
   deflectionMm: finite("deflection")
     .gt(0, "Deflection must be more than 0 mm: a loaded machine always deflects; if the dial did not move, use a larger force")
+    .min(0.0001, "Deflection must be at least 0.0001 mm: if the dial moved less, use a larger force")
     .max(10, "Deflection must be at most 10 mm"),
   note: text(500).default(""),
   measuredAt: measuredAtSchema,

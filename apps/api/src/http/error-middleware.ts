@@ -46,8 +46,9 @@ function toAppError(err: unknown): AppError | undefined {
     default:
       break;
   }
-  // Client errors raised by Express itself.
-  if (err instanceof URIError) return AppError.validation("The address contains an invalid %-escape.");
+  // Client errors raised by Express itself (the router marks a path parameter it cannot decode
+  // with status 400; any other URIError is a fault of ours).
+  if (err instanceof URIError && (err as BodyParserError).status === 400) return AppError.validation("The address contains an invalid %-escape.");
   const { status, expose, message } = (err ?? {}) as BodyParserError;
   if (typeof status === "number" && status >= 400 && status < 500 && expose) {
     return new AppError(codeByClientStatus[status] ?? "validation_failed", message || "The request is not valid.");

@@ -45,7 +45,8 @@ function multipart(photoMaxBytes: number): RequestHandler {
             return next(AppError.validation(`The upload was not accepted: ${err.message}.`));
         }
       }
-      next(err);
+      // Anything else is a body the multipart parser could not read (cut short, no boundary…).
+      next(AppError.validation("The upload could not be read: send the cut log as a complete multipart/form-data body."));
     });
   };
 }

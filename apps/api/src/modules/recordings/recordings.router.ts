@@ -53,7 +53,8 @@ function multipart(): RequestHandler {
             return next(AppError.validation(`The upload was not accepted: ${err.message}.`));
         }
       }
-      next(err);
+      // Anything else is a body the multipart parser could not read (cut short, no boundary…).
+      next(AppError.validation("The upload could not be read: send the recording as a complete multipart/form-data body.", { file: "The upload could not be read" }));
     });
   };
 }
