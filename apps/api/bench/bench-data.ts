@@ -41,7 +41,7 @@ export const BENCH_CUT_LOGS = 30_000;
 /** Every bench account's password (invented; the bench database is throwaway). */
 export const BENCH_PASSWORD = "bench-spindle-warmup-2026";
 /** Bumped whenever the data below changes, so a kept database is rebuilt. */
-const DATA_VERSION = 3;
+const DATA_VERSION = 4;
 
 const log = (line: string) => console.log(`  ${line}`);
 
@@ -454,17 +454,18 @@ async function withSecondaryIndexesRebuilt(sequelize: Sequelize, tables: string[
 }
 
 async function bulkRecipes(sequelize: Sequelize, n: number): Promise<void> {
-  // 100 000 recipes: shop g % 20, template (g / 20) % n, a part name and job number, a status
-  // (more approved than retired), notes from a short list, updated within the last year.
+  // 100 000 recipes: shop g % 20; within the shop (k = g / 20) template k % n, a part name and job
+  // number, a status (more approved than retired), notes from a short list, updated within the
+  // last year.
   await sequelize.query(
     `INSERT INTO recipes (shop_id, name, assembly_id, machine_id, cutter_id, material_id, operation, status, params, result,
                           rpm, feed_mm_per_min, notes, author_id, created_at, updated_at)
      SELECT b.shop_id,
-            parts.a[1 + (g * 7) % array_length(parts.a, 1)] || ' ' || t.operation || ' — job ' || (1000 + g / 20),
+            parts.a[1 + (g / :shops * 7) % array_length(parts.a, 1)] || ' ' || t.operation || ' — job ' || (1000 + g / :shops),
             ba.id, ba.machine_id, ba.cutter_id, t.material_id, t.operation,
-            (ARRAY['draft','trial','proven','approved','approved','approved','retired'])[1 + (g / 20 * 13) % 7],
+            (ARRAY['draft','trial','proven','approved','approved','approved','retired'])[1 + (g / :shops * 13) % 7],
             t.params, t.result, t.rpm, t.feed_mm_per_min,
-            notes.a[1 + (g * 11) % array_length(notes.a, 1)],
+            notes.a[1 + (g / :shops * 11) % array_length(notes.a, 1)],
             au.user_id,
             now() - interval '366 days' + (g * 317 % 525600 || ' minutes')::interval,
             now() - ((g * 7919) % 525600 || ' minutes')::interval

@@ -9,6 +9,10 @@ import { once } from "node:events";
 import { cpus, loadavg, tmpdir } from "node:os";
 import path from "node:path";
 import { fileURLToPath } from "node:url";
+import { seededRandom } from "../src/modules/recordings/recording-fixtures.js";
+
+/** A deterministic pseudo-random source (same mix on every run). */
+export { seededRandom };
 
 export const apiDir = fileURLToPath(new URL("../", import.meta.url));
 
@@ -23,6 +27,15 @@ export function machineLine(): string {
   return `${cpus().length} cores (${cpus()[0]?.model.trim() ?? "unknown CPU"}), Node ${process.versions.node}, load average ${one} / ${five} / ${fifteen} (1 / 5 / 15 min)`;
 }
 
+/** Servers started here, stopped if this process is interrupted (they must not outlive it). */
+const children = new Set<ChildProcess>();
+for (const signal of ["SIGINT", "SIGTERM"] as const) {
+  process.once(signal, () => {
+    for (const child of children) child.kill("SIGTERM");
+    process.exit(signal === "SIGINT" ? 130 : 143);
+  });
+}
+
 export interface RunningServer {
   baseUrl: string;
   child: ChildProcess;
@@ -35,6 +48,8 @@ export interface RunningServer {
  */
 export async function startServer(name: string, command: string, args: string[], env: Record<string, string>, port: number, healthPath: string): Promise<RunningServer> {
   const child = spawn(command, args, { cwd: apiDir, env: { ...process.env, ...env }, stdio: ["ignore", "pipe", "pipe"] });
+  children.add(child);
+  child.once("exit", () => children.delete(child));
   let output = "";
   child.stdout!.on("data", (d: Buffer) => (output += d.toString()));
   child.stderr!.on("data", (d: Buffer) => (output += d.toString()));
@@ -257,18 +272,6 @@ export function printLoad(title: string, result: LoadResult): void {
   console.log(
     `  ${result.requests} requests in ${result.seconds} s = ${result.requestsPerSecond.toFixed(1)} requests/s; connection errors ${result.errors}, timeouts ${result.timeouts}`,
   );
-}
-
-/** A deterministic pseudo-random source (same mix on every run). */
-export function seededRandom(seed: number): () => number {
-  let s = seed >>> 0;
-  return () => {
-    s = (s + 0x6d2b79f5) >>> 0;
-    let t = s;
-    t = Math.imul(t ^ (t >>> 15), t | 1);
-    t ^= t + Math.imul(t ^ (t >>> 7), t | 61);
-    return ((t ^ (t >>> 14)) >>> 0) / 4294967296;
-  };
 }
 
 export const pick = <T>(random: () => number, items: readonly T[]): T => items[Math.floor(random() * items.length)]!;

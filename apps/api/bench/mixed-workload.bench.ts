@@ -29,8 +29,8 @@ interface ShopWork {
   shop: BenchShop;
   /** Approved recipes: every member reads them and logs cuts on them. */
   approved: string[];
-  /** Drafts and recipes on trial: programmers edit them (an edit of an approved recipe's cut would send it back to trial). */
-  editable: string[];
+  /** Drafts and recipes on trial with their parameters: programmers edit them (an edit of an approved recipe's cut would send it back to trial). */
+  editable: Array<{ id: string; params: RecipeParams }>;
   /** Assembly, material, operation and parameters the engine has computed before. */
   cuts: Array<{ assemblyId: string; materialId: string; operation: Operation; params: RecipeParams }>;
 }
@@ -41,12 +41,15 @@ async function sample<T extends object>(sql: string, shopId: string): Promise<T[
 
 const work: ShopWork[] = [];
 for (const shop of data.shops) {
-  const ids = (status: string) =>
-    sample<{ id: string }>(`SELECT id FROM recipes WHERE shop_id = :shopId AND deleted_at IS NULL AND status IN (${status}) ORDER BY md5(id::text) LIMIT 300`, shop.id);
+  const recipes = (status: string) =>
+    sample<{ id: string; params: RecipeParams }>(
+      `SELECT id, params FROM recipes WHERE shop_id = :shopId AND deleted_at IS NULL AND status IN (${status}) ORDER BY md5(id::text) LIMIT 300`,
+      shop.id,
+    );
   work.push({
     shop,
-    approved: (await ids("'approved'")).map((r) => r.id),
-    editable: (await ids("'draft', 'trial'")).map((r) => r.id),
+    approved: (await recipes("'approved'")).map((r) => r.id),
+    editable: await recipes("'draft', 'trial'"),
     cuts: (
       await sample<{ assembly_id: string; material_id: string; operation: Operation; params: RecipeParams }>(
         `SELECT DISTINCT ON (assembly_id, material_id, operation) assembly_id, material_id, operation, params FROM recipes WHERE shop_id = :shopId`,
@@ -97,12 +100,13 @@ function mixedPlan(people: Person[]): () => PlannedRequest {
       };
     }
     if (r < 0.9) {
-      const id = pick(random, person.work.editable);
+      const recipe = pick(random, person.work.editable);
+      // Half change the notes, half the depth of cut of the recipe's own parameters (recomputed).
       const body =
         random() < 0.5
           ? { notes: `Checked on ${new Date().toISOString().slice(0, 10)}: clamps moved to the outer slots.`, changeNote: "Notes" }
-          : { params: { ...pick(random, person.work.cuts).params, axialDepthMm: Number((0.5 + random() * 3).toFixed(1)) }, changeNote: "Depth of cut" };
-      return { kind: "edit recipe", method: "PATCH", path: `${base}/recipes/${id}`, headers, body };
+          : { params: { ...recipe.params, axialDepthMm: Number((0.5 + random() * 3).toFixed(1)) }, changeNote: "Depth of cut" };
+      return { kind: "edit recipe", method: "PATCH", path: `${base}/recipes/${recipe.id}`, headers, body };
     }
     const rpm = 8000 + Math.round(random() * 12000);
     return {
