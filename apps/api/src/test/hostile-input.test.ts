@@ -281,121 +281,124 @@ function serialize(value: Json, m: Mutation, at: (string | number)[] = []): stri
 
 const paramNames = (path: string) => [...path.matchAll(/:([A-Za-z]+)/g)].map((m) => m[1]!);
 
+/** One hostile request to any of `routes` (each route equally likely); the arbitraries are built once per route. */
 function probeArbitrary(routes: RouteCase[]): fc.Arbitrary<Probe> {
-  return fc.constantFrom(...routes).chain((route) => {
-    const names = paramNames(route.path);
-    const base = (): Omit<Probe, "description"> => ({ route, params: {}, query: "" });
-    const kinds: fc.WeightedArbitrary<Probe>[] = [];
+  return fc.oneof(...routes.map(routeProbe));
+}
 
-    if (route.query?.length) {
-      kinds.push({
-        weight: 60,
-        arbitrary: fc.tuple(fc.constantFrom(...route.query), hostileUrlPart, fc.boolean()).map(([key, value, twice]) => ({
-          ...base(),
-          query: twice ? `${key}=${value}&${key}=1` : `${key}=${value}`,
-          field: `query.${key}`,
-          description: `query ${key}=${value}${twice ? " (twice)" : ""}`,
-        })),
+function routeProbe(route: RouteCase): fc.Arbitrary<Probe> {
+  const names = paramNames(route.path);
+  const base = (): Omit<Probe, "description"> => ({ route, params: {}, query: "" });
+  const kinds: fc.WeightedArbitrary<Probe>[] = [];
+
+  if (route.query?.length) {
+    kinds.push({
+      weight: 60,
+      arbitrary: fc.tuple(fc.constantFrom(...route.query), hostileUrlPart, fc.boolean()).map(([key, value, twice]) => ({
+        ...base(),
+        query: twice ? `${key}=${value}&${key}=1` : `${key}=${value}`,
+        field: `query.${key}`,
+        description: `query ${key}=${value}${twice ? " (twice)" : ""}`,
+      })),
+    });
+  }
+  kinds.push({
+    weight: 20,
+    arbitrary: fc.tuple(fc.constantFrom(...PROTO_KEYS, "page", "q", "x[y]", "a.b"), hostileUrlPart).map(([key, value]) => ({
+      ...base(),
+      query: `${encodeAll(key)}=${value}`,
+      description: `query ${key}=${value}`,
+    })),
+  });
+  if (names.length > 0) {
+    kinds.push({
+      weight: 60,
+      arbitrary: fc.tuple(fc.constantFrom(...names), hostileUrlPart).map(([name, value]) => ({
+        ...base(),
+        params: { [name]: value },
+        field: `params.${name}`,
+        description: `:${name} = ${value}`,
+      })),
+    });
+  }
+
+  const method = route.method;
+  if (method !== "GET" && method !== "DELETE") {
+    const seed = route.body?.();
+    const mutations: fc.WeightedArbitrary<Mutation>[] = [
+      { weight: 2, arbitrary: hostileJson.map((value): Mutation => ({ kind: "body", value })) },
+      { weight: 1, arbitrary: fc.constantFrom(...PROTO_KEYS).chain((key) => hostileJson.map((value): Mutation => ({ kind: "add", path: [], key, value }))) },
+    ];
+    const paths = seed === undefined ? [] : pathsOf(seed);
+    if (paths.length > 0) {
+      mutations.push(
+        { weight: 8, arbitrary: fc.tuple(fc.constantFrom(...paths), hostileJson).map(([path, value]): Mutation => ({ kind: "field", path, value })) },
+        { weight: 1, arbitrary: fc.constantFrom(...paths).map((path): Mutation => ({ kind: "drop", path })) },
+      );
+      const objects = [[], ...paths].filter((p) => {
+        const v = p.reduce<Json>((acc, k) => (acc as Record<string, Json>)[k as string] as Json, seed!);
+        return v !== null && typeof v === "object" && !Array.isArray(v);
+      });
+      mutations.push({
+        weight: 1,
+        arbitrary: fc.tuple(fc.constantFrom(...objects), fc.constantFrom(...PROTO_KEYS), hostileJson).map(([path, key, value]): Mutation => ({ kind: "add", path, key, value })),
       });
     }
     kinds.push({
-      weight: 20,
-      arbitrary: fc.tuple(fc.constantFrom(...PROTO_KEYS, "page", "q", "x[y]", "a.b"), hostileUrlPart).map(([key, value]) => ({
+      weight: 160,
+      arbitrary: fc.oneof(...mutations).map((m): Probe => {
+        const text = serialize(seed ?? {}, m);
+        const field = m.kind === "field" || m.kind === "drop" ? m.path.join(".") : undefined;
+        return {
+          ...base(),
+          payload: { text, contentType: "application/json" },
+          ...(field ? { field } : {}),
+          description: `${m.kind} ${"path" in m ? m.path.join(".") : ""} ${"key" in m ? m.key : ""} = ${"value" in m ? m.value.slice(0, 120) : "(dropped)"}`,
+        };
+      }),
+    });
+    kinds.push({
+      weight: 40,
+      arbitrary: fc
+        .constantFrom<[string | Buffer, string | undefined]>(
+          ['{"name": "x",', "application/json"],
+          ["{'single': 'quotes'}", "application/json"],
+          ['{"a": NaN}', "application/json"],
+          ['{"a": Infinity}', "application/json"],
+          ['{"a": 1e999999999999}', "application/json"],
+          ['{"a": 01}', "application/json"],
+          ['"just a string"', "application/json"],
+          ["12", "application/json"],
+          ["null", "application/json"],
+          ["", "application/json"],
+          ["\uFEFF{}", "application/json"],
+          [Buffer.from([0x7b, 0x22, 0x6e, 0x22, 0x3a, 0x22, 0xed, 0xa0, 0x80, 0xff, 0x22, 0x7d]), "application/json"],
+          [Buffer.from('{"name":"x"}', "utf16le"), "application/json; charset=utf-16"],
+          ['{"name":"x"}', "application/json; charset=latin1"],
+          ['{"name":"x"}', "text/plain"],
+          ["name=x&role=owner", "application/x-www-form-urlencoded"],
+          ["<name>x</name>", "application/xml"],
+          ['{"name":"x"}', "application/vnd.api+json"],
+          ["--xx\r\nContent-Disposition: form-data; name=\"data\"\r\n\r\n{}\r\n--xx--\r\n", "multipart/form-data; boundary=xx"],
+          ["--broken", "multipart/form-data; boundary=nope"],
+          ['{"name":"x"}', undefined],
+        )
+        .map(([text, contentType]) => ({
+          ...base(),
+          payload: { text, ...(contentType ? { contentType } : {}) },
+          description: `raw body as ${contentType ?? "no content type"}: ${String(text).slice(0, 60)}`,
+        })),
+    });
+    kinds.push({
+      weight: 1,
+      arbitrary: fc.constantFrom(1, 100, 4096).map((extra) => ({
         ...base(),
-        query: `${encodeAll(key)}=${value}`,
-        description: `query ${key}=${value}`,
+        payload: { text: `{"name":"${"x".repeat(JSON_LIMIT_BYTES - 11 + extra)}"}`, contentType: "application/json" },
+        description: `body ${extra} bytes past the limit`,
       })),
     });
-    if (names.length > 0) {
-      kinds.push({
-        weight: 60,
-        arbitrary: fc.tuple(fc.constantFrom(...names), hostileUrlPart).map(([name, value]) => ({
-          ...base(),
-          params: { [name]: value },
-          field: `params.${name}`,
-          description: `:${name} = ${value}`,
-        })),
-      });
-    }
-
-    const method = route.method;
-    if (method !== "GET" && method !== "DELETE") {
-      const seed = route.body?.();
-      const mutations: fc.WeightedArbitrary<Mutation>[] = [
-        { weight: 2, arbitrary: hostileJson.map((value): Mutation => ({ kind: "body", value })) },
-        { weight: 1, arbitrary: fc.constantFrom(...PROTO_KEYS).chain((key) => hostileJson.map((value): Mutation => ({ kind: "add", path: [], key, value }))) },
-      ];
-      const paths = seed === undefined ? [] : pathsOf(seed);
-      if (paths.length > 0) {
-        mutations.push(
-          { weight: 8, arbitrary: fc.tuple(fc.constantFrom(...paths), hostileJson).map(([path, value]): Mutation => ({ kind: "field", path, value })) },
-          { weight: 1, arbitrary: fc.constantFrom(...paths).map((path): Mutation => ({ kind: "drop", path })) },
-        );
-        const objects = [[], ...paths].filter((p) => {
-          const v = p.reduce<Json>((acc, k) => (acc as Record<string, Json>)[k as string] as Json, seed!);
-          return v !== null && typeof v === "object" && !Array.isArray(v);
-        });
-        mutations.push({
-          weight: 1,
-          arbitrary: fc.tuple(fc.constantFrom(...objects), fc.constantFrom(...PROTO_KEYS), hostileJson).map(([path, key, value]): Mutation => ({ kind: "add", path, key, value })),
-        });
-      }
-      kinds.push({
-        weight: 160,
-        arbitrary: fc.oneof(...mutations).map((m): Probe => {
-          const text = serialize(seed ?? {}, m);
-          const field = m.kind === "field" || m.kind === "drop" ? m.path.join(".") : undefined;
-          return {
-            ...base(),
-            payload: { text, contentType: "application/json" },
-            ...(field ? { field } : {}),
-            description: `${m.kind} ${"path" in m ? m.path.join(".") : ""} ${"key" in m ? m.key : ""} = ${"value" in m ? m.value.slice(0, 120) : "(dropped)"}`,
-          };
-        }),
-      });
-      kinds.push({
-        weight: 40,
-        arbitrary: fc
-          .constantFrom<[string | Buffer, string | undefined]>(
-            ['{"name": "x",', "application/json"],
-            ["{'single': 'quotes'}", "application/json"],
-            ['{"a": NaN}', "application/json"],
-            ['{"a": Infinity}', "application/json"],
-            ['{"a": 1e999999999999}', "application/json"],
-            ['{"a": 01}', "application/json"],
-            ['"just a string"', "application/json"],
-            ["12", "application/json"],
-            ["null", "application/json"],
-            ["", "application/json"],
-            ["\uFEFF{}", "application/json"],
-            [Buffer.from([0x7b, 0x22, 0x6e, 0x22, 0x3a, 0x22, 0xed, 0xa0, 0x80, 0xff, 0x22, 0x7d]), "application/json"],
-            [Buffer.from('{"name":"x"}', "utf16le"), "application/json; charset=utf-16"],
-            ['{"name":"x"}', "application/json; charset=latin1"],
-            ['{"name":"x"}', "text/plain"],
-            ["name=x&role=owner", "application/x-www-form-urlencoded"],
-            ["<name>x</name>", "application/xml"],
-            ['{"name":"x"}', "application/vnd.api+json"],
-            ["--xx\r\nContent-Disposition: form-data; name=\"data\"\r\n\r\n{}\r\n--xx--\r\n", "multipart/form-data; boundary=xx"],
-            ["--broken", "multipart/form-data; boundary=nope"],
-            ['{"name":"x"}', undefined],
-          )
-          .map(([text, contentType]) => ({
-            ...base(),
-            payload: { text, ...(contentType ? { contentType } : {}) },
-            description: `raw body as ${contentType ?? "no content type"}: ${String(text).slice(0, 60)}`,
-          })),
-      });
-      kinds.push({
-        weight: 1,
-        arbitrary: fc.constantFrom(1, 100, 4096).map((extra) => ({
-          ...base(),
-          payload: { text: `{"name":"${"x".repeat(JSON_LIMIT_BYTES - 11 + extra)}"}`, contentType: "application/json" },
-          description: `body ${extra} bytes past the limit`,
-        })),
-      });
-    }
-    return fc.oneof(...kinds);
-  });
+  }
+  return fc.oneof(...kinds);
 }
 
 /** Signs of an internal leak: stack frames, source paths, database error wording. */
