@@ -16,7 +16,6 @@ import {
   assemblyBodySchema,
   cutterBodySchema,
   machineBodySchema,
-  materialBodySchema,
   type CutterBody,
   type MachineBody,
   type Operation,
@@ -29,7 +28,6 @@ import { AssemblyModel } from "../src/modules/assemblies/assembly.model.js";
 import { CutterModel } from "../src/modules/cutters/cutter.model.js";
 import { MachineModeModel } from "../src/modules/machines/machine-mode.model.js";
 import { MachineModel } from "../src/modules/machines/machine.model.js";
-import { MaterialModel } from "../src/modules/materials/material.model.js";
 import { createRecipe } from "../src/modules/recipes/recipes.service.js";
 import { MembershipModel } from "../src/modules/shops/membership.model.js";
 import { ShopModel } from "../src/modules/shops/shop.model.js";
@@ -41,7 +39,7 @@ export const BENCH_CUT_LOGS = 30_000;
 /** Every bench account's password (invented; the bench database is throwaway). */
 export const BENCH_PASSWORD = "bench-spindle-warmup-2026";
 /** Bumped whenever the data below changes, so a kept database is rebuilt. */
-const DATA_VERSION = 4;
+const DATA_VERSION = 5;
 
 const log = (line: string) => console.log(`  ${line}`);
 
@@ -327,38 +325,17 @@ async function insertLibrary(sequelize: Sequelize): Promise<void> {
       ),
       { transaction },
     );
-    // One shop material each, copied from the global birch plywood with the shop's own note.
-    const birch = await MaterialModel.findOne({ where: { globalKey: "plywood-birch" }, transaction });
-    if (!birch) throw new Error("the global material library has no plywood-birch row");
-    const body = materialBodySchema.parse({
-      name: "Birch plywood, 18 mm (our supplier)",
-      group: birch.materialGroup,
-      hardness: birch.hardness,
-      cuttingSpeed: birch.cuttingSpeed,
-      chipLoad: birch.chipLoad,
-      kc11NPerMm2: birch.kc11NPerMm2,
-      mc: birch.mc,
-      unitPowerJPerMm3: birch.unitPowerJPerMm3,
-      minChipThicknessMm: birch.minChipThicknessMm,
-      sourceNote: `Copied from the global “${birch.name}”. ${birch.sourceNote}`,
-    });
-    await MaterialModel.bulkCreate(
-      shops.map((shop) => ({
-        shopId: shop.id,
-        copiedFromId: birch.id,
-        name: body.name,
-        materialGroup: body.group,
-        hardness: body.hardness,
-        cuttingSpeed: body.cuttingSpeed,
-        chipLoad: body.chipLoad,
-        kc11NPerMm2: body.kc11NPerMm2,
-        mc: body.mc,
-        unitPowerJPerMm3: body.unitPowerJPerMm3,
-        minChipThicknessMm: body.minChipThicknessMm,
-        sourceNote: body.sourceNote,
-      })),
-      { transaction },
+    // One shop material each, copied from the global birch plywood with the shop's own name and note.
+    const [copied] = await sequelize.query(
+      `INSERT INTO materials (shop_id, copied_from_id, name, material_group, hardness, cutting_speed, chip_load, kc11_n_per_mm2, mc,
+                              unit_power_j_per_mm3, min_chip_thickness_mm, source_note)
+       SELECT b.shop_id, m.id, 'Birch plywood, 18 mm (our supplier)', m.material_group, m.hardness, m.cutting_speed, m.chip_load,
+              m.kc11_n_per_mm2, m.mc, m.unit_power_j_per_mm3, m.min_chip_thickness_mm, 'Copied from the global “' || m.name || '”. ' || m.source_note
+         FROM materials m CROSS JOIN bench_shops b WHERE m.global_key = 'plywood-birch'
+       RETURNING id`,
+      { transaction, type: QueryTypes.SELECT },
     );
+    if (!copied) throw new Error("the global material library has no plywood-birch row");
   });
 }
 
