@@ -1,5 +1,5 @@
 import { z } from "zod";
-import { axisSchema, ceilingBandSchema, modeSources } from "./library.js";
+import { axisSchema, ceilingBandSchema, machineAxisSchema, modeSources } from "./library.js";
 
 /*
  * A machine's vibration profile: dial-indicator stiffness and backlash readings, vibration modes,
@@ -77,14 +77,17 @@ export const stiffnessReadingBodySchema = z.object({
   /** Direction of the push and of the measured deflection */
   direction: axisSchema,
   forceN: finite("force").gt(0, "Force must be more than 0 N: push with a known load (spring scale or weights)").max(5000, "Force must be at most 5000 N"),
-  // At least 0.0001 mm: stiffness = F/δ stays within 5·10⁷ N/mm (5000 N / 0.0001 mm) instead of
-  // running off to infinity for a vanishing deflection.
   deflectionMm: finite("deflection")
     .gt(0, "Deflection must be more than 0 mm: a loaded machine always deflects; if the dial did not move, use a larger force")
-    .min(0.0001, "Deflection must be at least 0.0001 mm: if the dial moved less, use a larger force")
     .max(10, "Deflection must be at most 10 mm"),
   note: text(500).default(""),
   measuredAt: measuredAtSchema,
+}).superRefine((b, ctx) => {
+  // The reading sets the machine's stiffness (F/δ): it must be one a machine axis may have, or a
+  // tiny deflection would store an absurd (even infinite) stiffness.
+  if (b.forceN > 0 && b.deflectionMm > 0 && !machineAxisSchema.shape.stiffnessNPerMm.safeParse(b.forceN / b.deflectionMm).success) {
+    ctx.addIssue({ code: "custom", path: ["deflectionMm"], message: "Force ÷ deflection is stiffer than any machine axis may be: check the dial reading and its units" });
+  }
 });
 export type StiffnessReadingBody = z.infer<typeof stiffnessReadingBodySchema>;
 

@@ -23,6 +23,30 @@ export function fieldErrors(error: z.ZodError, prefix?: string): Record<string, 
   return fields;
 }
 
+const NUL = "\u0000";
+const NUL_SCAN_DEPTH = 32;
+
+/**
+ * Fields whose text holds U+0000 (dot path → message): PostgreSQL text cannot store it, so such
+ * input is refused (by `validate`, and by the routes that parse uploads themselves) rather than
+ * failing, or being silently altered, on its way to the database.
+ */
+export function nulCharacterFields(value: unknown, path: string[]): Record<string, string> {
+  const out: Record<string, string> = {};
+  // A walk with its own stack, no deeper than any contract reaches (they strip what they do not
+  // name): hostile bodies nest hundreds of thousands of levels deep.
+  const pending: [unknown, string[]][] = [[value, path]];
+  for (let next = pending.pop(); next; next = pending.pop()) {
+    const [item, at] = next;
+    if (typeof item === "string") {
+      if (item.includes(NUL)) out[at.join(".")] = "Remove the NUL character (U+0000)";
+    } else if (item !== null && typeof item === "object" && at.length < NUL_SCAN_DEPTH) {
+      for (const [key, child] of Object.entries(item)) pending.push([child, [...at, key]]);
+    }
+  }
+  return out;
+}
+
 /**
  * Validates body, query and params with the route's contract schemas and keeps the parsed values
  * in `res.locals` (Express 5's `req.query` is read-only); read them back with `inputOf`.
@@ -36,12 +60,14 @@ export function validate<S extends InputSchemas>(schemas: S): RequestHandler {
     for (const part of ["params", "query", "body"] as const) {
       const schema = schemas[part];
       if (!schema) continue;
-      const result = schema.safeParse(part === "body" ? (req.body ?? {}) : req[part]);
+      const raw: unknown = part === "body" ? (req.body ?? {}) : req[part];
+      Object.assign(fields, nulCharacterFields(raw, part === "body" ? [] : [part]));
+      const result = schema.safeParse(raw);
       if (result.success) {
         parsed[part] = result.data;
         continue;
       }
-      Object.assign(fields, fieldErrors(result.error, part === "body" ? undefined : part));
+      for (const [key, message] of Object.entries(fieldErrors(result.error, part === "body" ? undefined : part))) fields[key] ??= message;
       rootMessage ??= result.error.issues.find((i) => i.path.length === 0)?.message;
     }
     if (Object.keys(fields).length > 0 || rootMessage) {

@@ -98,6 +98,7 @@ const STRUCTURES = [
   '{"__proto__":{"polluted":true}}',
   '{"constructor":{"prototype":{"polluted":true}}}',
   `${"[".repeat(2000)}${"]".repeat(2000)}`,
+  `${"[".repeat(200_000)}"\\u0000"${"]".repeat(200_000)}`,
   `${'{"a":'.repeat(1000)}1${"}".repeat(1000)}`,
   `{${Array.from({ length: 500 }, (_, i) => `"k${i}":${i}`).join(",")}}`,
 ];
@@ -248,6 +249,8 @@ interface Probe {
   payload?: { text: string | Buffer; contentType?: string };
   /** The field a validation error must name, if one was broken on purpose. */
   field?: string;
+  /** The broken body field's new value is a number or a string: well typed, it may break a rule between fields instead. */
+  wellTyped?: boolean;
   description: string;
 }
 
@@ -353,6 +356,7 @@ function routeProbe(route: RouteCase): fc.Arbitrary<Probe> {
           ...base(),
           payload: { text, contentType: "application/json" },
           ...(field ? { field } : {}),
+          ...(m.kind === "field" && /^(-?\d|")/.test(m.value) ? { wellTyped: true } : {}),
           description: `${m.kind} ${"path" in m ? m.path.join(".") : ""} ${"key" in m ? m.key : ""} = ${"value" in m ? m.value.slice(0, 120) : "(dropped)"}`,
         };
       }),
@@ -490,6 +494,9 @@ function passesContract(probe: Probe): boolean {
   }
 }
 
+/** The message of `validate()` when a contract refuses a body or query field. */
+const CONTRACT_REFUSAL = "Some fields need attention.";
+
 /** What is wrong with an answer to a probe, or undefined when it is as it should be. */
 function problemWith(probe: Probe, status: number, text: string): string | undefined {
   if (status >= 500) return "a 5xx answer";
@@ -504,27 +511,64 @@ function problemWith(probe: Probe, status: number, text: string): string | undef
   }
   const parsed = apiErrorSchema.safeParse(body);
   if (!parsed.success || Object.keys(body as object).join() !== "error") return "an error answer that is not { error: { code, message, fields? } }";
-  const { code, fields } = parsed.data.error;
+  const { code, message, fields } = parsed.data.error;
   const field = probe.field;
   if (status === 400 && code === "validation_failed" && field && !field.startsWith("params.")) {
     const keys = Object.keys(fields ?? {});
-    // The broken field itself, a part of it, or the object it sits in (e.g. a whole replaced list).
-    if (!keys.some((k) => k === field || k.startsWith(`${field}.`) || field.startsWith(`${k}.`))) return `fields ${JSON.stringify(fields)} do not name ${field}`;
+    if (keys.length === 0) return `a validation error without fields after breaking ${field}`;
+    // When the contract refused the request, it names the broken field itself, a part of it, or the
+    // object it sits in (e.g. a whole replaced list); a well-typed value may instead break a rule
+    // between fields, which names a field beside it (overall length 0.3 mm: "Flute length cannot
+    // exceed the overall length" on fluteLengthMm). A rule of the service may name another field
+    // (restoring a revision whose assembly was deleted meanwhile names assemblyId).
+    const named = keys.some((k) => k === field || k.startsWith(`${field}.`) || field.startsWith(`${k}.`));
+    const parent = (path: string) => path.split(".").slice(0, -1).join(".");
+    const besideIt = probe.wellTyped === true && keys.every((k) => parent(k) === parent(field));
+    if (message === CONTRACT_REFUSAL && !named && !besideIt) return `fields ${JSON.stringify(fields)} do not name ${field}`;
   }
   return undefined;
 }
 
 describe("inputs the fuzzing once broke (1)", () => {
-  it("a stiffness reading with a vanishing deflection is refused with its field (F/δ was infinite: 500)", async () => {
+  it("a stiffness reading whose force ÷ deflection no machine axis can have is refused with its field (a vanishing deflection made it infinite: 500)", async () => {
     const url = `/api/shops/${team.shopId}/machines/${ids.machineId}/stiffness-readings`;
-    for (const deflectionMm of [5e-324, 1e-300, 0.00009]) {
-      const res = await team.owner.agent.post(url).send({ xMm: 10, yMm: 10, direction: "x", forceN: 50, deflectionMm, measuredAt: "2026-03-02" });
+    const reading = (forceN: number, deflectionMm: number) => ({ xMm: 10, yMm: 10, direction: "x", forceN, deflectionMm, measuredAt: "2026-03-02" });
+    for (const [forceN, deflectionMm] of [[50, 5e-324], [50, 1e-300], [5000, 0.0001]] as const) {
+      const res = await team.owner.agent.post(url).send(reading(forceN, deflectionMm));
       expect(res.status).toBe(400);
-      expect(apiErrorSchema.parse(res.body).error.fields).toEqual({ deflectionMm: "Deflection must be at least 0.0001 mm: if the dial moved less, use a larger force" });
+      expect(apiErrorSchema.parse(res.body).error.fields).toEqual({ deflectionMm: "Force ÷ deflection is stiffer than any machine axis may be: check the dial reading and its units" });
     }
-    const smallest = await team.owner.agent.post(url).send({ xMm: 10, yMm: 10, direction: "x", forceN: 5000, deflectionMm: 0.0001, measuredAt: "2026-03-02" });
-    expect(smallest.status).toBe(201);
-    expect((smallest.body as { reading: { stiffnessNPerMm: number } }).reading.stiffnessNPerMm).toBeCloseTo(5e7, 0);
+    // 1000 N / 0.0001 mm = 10⁷ N/mm, the stiffest a machine axis may be: accepted.
+    const stiffest = await team.owner.agent.post(url).send(reading(1000, 0.0001));
+    expect(stiffest.status).toBe(201);
+    expect((stiffest.body as { reading: { stiffnessNPerMm: number } }).reading.stiffnessNPerMm).toBeCloseTo(1e7, 0);
+    const cleanUp = await team.owner.agent.delete(`${url}/${(stiffest.body as { reading: { id: string } }).reading.id}`);
+    expect(cleanUp.status).toBe(200);
+  });
+
+  it("text holding a NUL character is refused with its field, on every route alike (raw queries failed with a 500, others stored it altered)", async () => {
+    const shop = `/api/shops/${team.shopId}`;
+    const message = "Remove the NUL character (U+0000)";
+    const ladder = await team.owner.agent.post(`${shop}/recipes/${ids.recipeId}/ladder`).send({ parameter: "feed", rungs: 3 });
+    expect(ladder.status).toBe(201);
+    const cases = [
+      [team.owner.agent.post(`${shop}/recipes/${ids.recipeId}/transition`).send({ to: "trial", comment: "ok\u0000" }), { comment: message }],
+      [team.owner.agent.post(`${shop}/recipes/${ids.recipeId}/ladder/score`).send({ index: 0, edgeQuality: 4, chips: "chips", sound: 4, heat: 2, note: "\u0000" }), { note: message }],
+      [team.owner.agent.post(`${shop}/machines`).send(machineBody({ name: "Router\u0000" })), { name: message }],
+      [team.owner.agent.patch(`${shop}/cutters/${ids.cutterId}`).send({ notes: "a\u0000" }), { notes: message }],
+      [team.owner.agent.get(`${shop}/machines?q=a%00b`), { "query.q": message }],
+      [team.owner.agent.post(`${shop}/recipes/${ids.recipeId}/cut-logs`).send({ outcome: "clean", actualRpm: 18000, actualFeedMmPerMin: 1500, axialDepthMm: 2, radialDepthMm: 1, note: "a\u0000" }), { note: message }],
+      [team.owner.agent.patch("/api/me").send({ name: "Me\u0000" }), { name: message }],
+    ] as const;
+    for (const [pending, fields] of cases) {
+      const res = await pending;
+      expect(res.status, JSON.stringify(res.body)).toBe(400);
+      expect(apiErrorSchema.parse(res.body).error.fields).toEqual(fields);
+    }
+    // Nested far deeper than any contract reaches (the first version of the check overflowed the stack: 500).
+    const deep = await team.owner.agent.post("/api/shops").set("Content-Type", "application/json").send(`{"name":${"[".repeat(200_000)}"\\u0000"${"]".repeat(200_000)}}`);
+    expect(deep.status).toBe(400);
+    expect(apiErrorSchema.parse(deep.body).error.fields).toEqual({ name: expect.any(String) });
   });
 
   it("a checkout id the provider's client cannot put in a URL is refused with its field (was a 400 blaming the address)", async () => {

@@ -3,7 +3,7 @@ import multer from "multer";
 import { z } from "zod";
 import { CUT_LOG_MAX_PHOTOS, cutLogBodySchema, cutLogListQuerySchema, paginationQuerySchema, type CutLogBody } from "@ringdown/contracts";
 import { AppError } from "../../http/app-error.js";
-import { inputOf, validate, fieldErrors } from "../../http/validate.js";
+import { inputOf, validate, fieldErrors, nulCharacterFields } from "../../http/validate.js";
 import type { Storage } from "../../storage/storage.js";
 import { recipeIdOf, shopAndActor } from "../recipes/recipes.router.js";
 import { createCutLog, cutLogPhoto, recipeCutLogs, shopCutLogs, type UploadedPhoto } from "./cut-logs.service.js";
@@ -63,6 +63,8 @@ function bodyOf(req: Request): CutLogBody {
       throw AppError.validation("The form field “data” is not valid JSON.", { data: "Not valid JSON" });
     }
   }
+  const nul = nulCharacterFields(raw, []);
+  if (Object.keys(nul).length > 0) throw AppError.validation("Some fields need attention.", nul);
   const parsed = cutLogBodySchema.safeParse(raw ?? {});
   if (!parsed.success) throw AppError.validation("Some fields need attention.", fieldErrors(parsed.error));
   return parsed.data;

@@ -3,7 +3,7 @@ import multer from "multer";
 import { acceptDialRpmBodySchema, acceptModeBodySchema, RECORDING_LIMITS, recordingListQuerySchema, recordingUploadFieldsSchema } from "@ringdown/contracts";
 import { AppError } from "../../http/app-error.js";
 import { currentShop, currentUser } from "../../http/locals.js";
-import { fieldErrors, inputOf, validate } from "../../http/validate.js";
+import { fieldErrors, inputOf, nulCharacterFields, validate } from "../../http/validate.js";
 import type { Storage } from "../../storage/storage.js";
 import { requireShopRole } from "../shops/require-shop-role.js";
 import { requestActor } from "../audit/audit-actor.js";
@@ -87,6 +87,8 @@ export function registerRecordingRoutes(router: Router, deps: RecordingRouteDeps
 
   router.post(base, upload, async (req, res) => {
     const machineId = idParam(req.params.machineId, "Machine");
+    const nul = nulCharacterFields(req.body ?? {}, []);
+    if (Object.keys(nul).length > 0) throw AppError.validation("Some fields need attention.", nul);
     const parsed = recordingUploadFieldsSchema.safeParse(req.body ?? {});
     if (!parsed.success) throw AppError.validation("Some fields need attention.", fieldErrors(parsed.error));
     const recording = await uploadRecording(currentShop(res).shop.id, machineId, parsed.data, fileOf(req), { ...requestActor(res), userId: currentUser(res).id }, deps.storage);
