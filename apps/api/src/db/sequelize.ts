@@ -1,4 +1,5 @@
 import pg from "pg";
+import { isDatabaseUnavailable } from "./connection-errors.js";
 import { Sequelize, type Transaction } from "sequelize";
 import { initUserModel } from "../modules/users/user.model.js";
 import { initShopModel } from "../modules/shops/shop.model.js";
@@ -36,11 +37,34 @@ export function connectDatabase(databaseUrl: string): Sequelize {
   // When the server ends a session while a statement runs (shutdown, restart, a terminated
   // backend), node-postgres reports it to that statement only and Sequelize would put the dead
   // connection back in the pool for the next request. Marked invalid, the pool drops it instead.
+  // The statement's own error can reach Sequelize (which then releases the connection) before the
+  // socket's "end" event, so a failed statement that says the session is gone marks it too, in a
+  // handler attached before Sequelize's own.
   instance.addHook("afterConnect", (connection) => {
     const client = connection as pg.Client & { _invalid?: boolean };
     client.once("end", () => {
       client._invalid = true;
     });
+    const query = client.query.bind(client) as (...args: unknown[]) => unknown;
+    (client as unknown as { query: (...args: unknown[]) => unknown }).query = (...args: unknown[]) => {
+      const last = args.length - 1;
+      const callback = args[last];
+      if (typeof callback === "function") {
+        // Sequelize passes a callback: mark the session before it hears of the error.
+        args[last] = (error: unknown, ...rest: unknown[]) => {
+          if (error && isDatabaseUnavailable(error)) client._invalid = true;
+          return (callback as (...a: unknown[]) => unknown)(error, ...rest);
+        };
+        return query(...args);
+      }
+      const result = query(...args);
+      if (result && typeof (result as Promise<unknown>).then === "function") {
+        (result as Promise<unknown>).catch((error: unknown) => {
+          if (isDatabaseUnavailable(error)) client._invalid = true;
+        });
+      }
+      return result;
+    };
   });
   initUserModel(instance);
   initShopModel(instance);
