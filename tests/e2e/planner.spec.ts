@@ -25,6 +25,14 @@ async function chooseDemoRouter(page: Page) {
   await select.selectOption(value!);
 }
 
+/** Signs in as the demo programmer and opens the planner on the demo router. */
+async function openPlannerOnDemoRouter(page: Page) {
+  await page.goto("/sign-in");
+  await signIn(page, programmer.email, programmer.password);
+  await expect(page.getByRole("heading", { level: 1, name: "Planner" })).toBeVisible();
+  await chooseDemoRouter(page);
+}
+
 test("a shop without machines gets an empty planner that points to Machines", async ({ page }) => {
   await signUp(page, newAccount());
   await expect(page.getByRole("heading", { level: 2, name: "No machines in this shop yet" })).toBeVisible();
@@ -34,10 +42,7 @@ test("a shop without machines gets an empty planner that points to Machines", as
 
 test("the planner works from the keyboard alone, from the first field to a saved recipe", async ({ page }) => {
   test.setTimeout(180_000);
-  await page.goto("/sign-in");
-  await signIn(page, programmer.email, programmer.password);
-  await expect(page.getByRole("heading", { level: 1, name: "Planner" })).toBeVisible();
-  await chooseDemoRouter(page);
+  await openPlannerOnDemoRouter(page);
   const readout = page.getByRole("region", { name: "Recipe read-out" });
   // The first read-out waits for the shop library to load.
   await expect(readout.getByRole("button", { name: "Spindle speed: why?" })).toBeVisible();
@@ -91,10 +96,7 @@ test("the planner reads and takes inches for a person who works in imperial unit
 
 test("the planner and the recipe pages pass axe's WCAG A/AA rules", async ({ page }) => {
   test.setTimeout(180_000);
-  await page.goto("/sign-in");
-  await signIn(page, programmer.email, programmer.password);
-  await expect(page.getByRole("heading", { level: 1, name: "Planner" })).toBeVisible();
-  await chooseDemoRouter(page);
+  await openPlannerOnDemoRouter(page);
   await expect(page.getByRole("region", { name: "Recipe read-out" }).getByRole("button", { name: "Spindle speed: why?" })).toBeVisible();
   await expect(page.getByRole("list", { name: "Limits" })).toBeVisible();
   expect(await violations(page, "main")).toEqual([]);
@@ -119,10 +121,7 @@ test("the planner and the recipe pages pass axe's WCAG A/AA rules", async ({ pag
 
 test("the machine's stiffness follows the work position, or the softest spot of a marked region", async ({ page }) => {
   test.setTimeout(180_000);
-  await page.goto("/sign-in");
-  await signIn(page, programmer.email, programmer.password);
-  await expect(page.getByRole("heading", { level: 1, name: "Planner" })).toBeVisible();
-  await chooseDemoRouter(page);
+  await openPlannerOnDemoRouter(page);
   const readout = page.getByRole("region", { name: "Recipe read-out" });
   // The demo router carries 18 lateral dial-indicator readings (9 positions × X and Y).
   await expect(page.getByText("Stiffness is taken from 18 dial-indicator readings at this position.")).toBeVisible();
