@@ -146,7 +146,10 @@ test("a recipe goes from the planner through a test-cut ladder, proof and approv
   const op = await signedIn(browser, operator);
   await op.getByRole("navigation", { name: "Main areas" }).getByRole("link", { name: "Recipes" }).click();
   await op.getByRole("search", { name: "Filter recipes" }).getByLabel("Search").fill(name);
+  // The search applies after a pause in typing and reloads the rows: wait for it before clicking one.
+  await expect(op).toHaveURL(/[?&]q=Journey/);
   const table = op.getByRole("table", { name: "Recipes" });
+  await expect(table.getByRole("row")).toHaveCount(2);
   await expect(table.getByRole("link", { name })).toBeVisible();
   await expect(table.getByRole("row").filter({ hasText: name })).toContainText("Approved");
   await table.getByRole("link", { name }).click();

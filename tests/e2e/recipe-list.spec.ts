@@ -137,6 +137,8 @@ test("a deleted recipe can be put back with Undo, or restored later from the del
   await expect(page.getByRole("status").filter({ hasText: `${name} is back in the shop's recipes.` })).toBeVisible();
   await expect(bin.getByText("No deleted recipe matches these filters")).toBeVisible();
   await page.getByRole("checkbox", { name: "Deleted recipes" }).uncheck();
+  // The rows reload once the address has caught up: wait for it before clicking one.
+  await expect(page).not.toHaveURL(/deleted=/);
   await page.getByRole("table", { name: "Recipes" }).getByRole("link", { name }).click();
   await expect(page.getByRole("heading", { level: 1, name })).toBeVisible();
 });

@@ -62,6 +62,7 @@ function deletedRecipeOf(state: unknown): DeletedRecipeState["deletedRecipe"] | 
 /** Filters, sort and page live in the address: a view can be bookmarked, shared and gone back to. */
 function useRecipeListState() {
   const [search, setSearch] = useSearchParams();
+  const listPath = useLocation().pathname;
   const id = (key: string) => {
     const v = search.get(key);
     return v && uuidLike.test(v) ? v : "";
@@ -86,6 +87,9 @@ function useRecipeListState() {
 
   const update = useCallback(
     (changes: Record<string, string | number | boolean | undefined>, resetPage = true) => {
+      // A late change (a search typed just before a row was opened) must not pull the person back
+      // from the page they went to while this list is still on screen during the transition.
+      if (window.location.pathname !== listPath) return;
       setSearch(
         () => {
           // From the address as it is now, not as it was at the last render: a search typed just
@@ -101,7 +105,7 @@ function useRecipeListState() {
         { replace: true },
       );
     },
-    [setSearch],
+    [setSearch, listPath],
   );
 
   const params: RecipeListParams = {
