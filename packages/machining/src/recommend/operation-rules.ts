@@ -19,7 +19,7 @@ export interface OperationRule {
 export const OPERATION_RULES: Readonly<Record<Operation, OperationRule>> = {
   slot: { label: "slot", chipFactor: 1, axial: false, fullWidth: true },
   profile: { label: "profile", chipFactor: 1, axial: false, fullWidth: false },
-  adaptive: { label: "adaptive clearing", chipFactor: 1, axial: false, fullWidth: false },
+  adaptive: { label: "constant-engagement clearing", chipFactor: 1, axial: false, fullWidth: false },
   pocket: { label: "pocket", chipFactor: 1, axial: false, fullWidth: false },
   finish: { label: "finish", chipFactor: 0.8, axial: false, fullWidth: false },
   ramp: { label: "ramp", chipFactor: 0.5, axial: false, fullWidth: true },

@@ -11,15 +11,14 @@ import { formatMeasure, fromDisplay, measures, toInputText, unitOf } from "@/com
 import { toSearch } from "@/lib/active-shop";
 import { formatQuantity } from "@/lib/format";
 import { useCutterOf, useMachineAssemblies, useMachineCutLogs, useMaterialChoices } from "../api/library-choices";
+import { OPERATION_LABELS } from "@/features/planner/lib/planner-values";
 import { StabilityPanel } from "./stability-panel";
 
-const OPERATIONS: Array<{ value: Operation; label: string }> = [
-  { value: "profile", label: "Profile (side cut)" },
-  { value: "adaptive", label: "Adaptive clearing" },
-  { value: "pocket", label: "Pocket" },
-  { value: "slot", label: "Slot (full width)" },
-  { value: "finish", label: "Finish pass" },
-];
+/** Side-cutting operations, where the lobes apply, with the planner's names for them. */
+const OPERATIONS: Array<{ value: Operation; label: string }> = (["profile", "adaptive", "pocket", "slot", "finish"] as const).map((value) => ({
+  value,
+  label: OPERATION_LABELS[value],
+}));
 
 /**
  * The stability chart of this machine for a cutter assembly on it and a material: the engine
