@@ -122,9 +122,7 @@ export function toRecommendInput(p: PlanningInput): RecommendInput {
   const pointed = isPointed(cutter.shape);
   const bull = shape === "bull";
   // The measured map across the bed (X and Y pushes: the engine's lateral stiffness).
-  const lateralPoints = (machine.stiffnessPoints ?? [])
-    .filter((pt) => pt.direction === "x" || pt.direction === "y")
-    .map((pt) => ({ xMm: pt.xMm, yMm: pt.yMm, direction: pt.direction, stiffnessNPerMm: pt.stiffnessNPerMm }));
+  const lateralPoints = (machine.stiffnessPoints ?? []).filter((pt) => pt.direction !== "z");
 
   const input: RecommendInput = {
     cutter: {
