@@ -1,8 +1,8 @@
 /**
  * The recipe list's SQL served bare, as the yardstick for the API's overhead: node:http and a pg
  * Pool of the API's size (10), no Express, no session, no membership check, no response schema.
- * It runs exactly what the route runs — `recipeListSql` with the same parsed query — with the
- * named replacements turned into bind parameters, and sends the rows as JSON.
+ * It runs exactly what the route runs — `recipeListSql` with the same parsed query, as the same named
+ * prepared statements — and sends the rows as JSON.
  *
  *   GET /shops/:shopId/recipes?<the route's query>   (header x-approved-only: 1 = an operator's list)
  *   GET /health
@@ -13,21 +13,10 @@ import { createServer } from "node:http";
 import pg from "pg";
 import { recipeListQuerySchema } from "@ringdown/contracts";
 import { recipeListSql } from "../src/modules/recipes/recipes.repository.js";
+import { statementName, toBindParameters } from "../src/db/prepared.js";
 
 const pool = new pg.Pool({ connectionString: process.env.DATABASE_URL, max: 10 });
 pg.types.setTypeParser(pg.types.builtins.INT8, (value: string) => Number.parseInt(value, 10));
-
-/** `:name` placeholders → `$n` with the values in order (a `::cast` is left alone). */
-function toBind(sql: string, replacements: Record<string, unknown>): { text: string; values: unknown[] } {
-  const names: string[] = [];
-  const text = sql.replace(/(?<!:):([A-Za-z_]\w*)/g, (_m, name: string) => {
-    if (!(name in replacements)) throw new Error(`no value for :${name}`);
-    let i = names.indexOf(name);
-    if (i < 0) i = names.push(name) - 1;
-    return `$${i + 1}`;
-  });
-  return { text, values: names.map((n) => replacements[n]) };
-}
 
 const server = createServer(async (req, res) => {
   const url = new URL(req.url ?? "/", "http://bare");
@@ -47,10 +36,14 @@ const server = createServer(async (req, res) => {
   }
   try {
     const sql = recipeListSql(match[1]!, query.data, req.headers["x-approved-only"] === "1");
-    const page = toBind(sql.page, sql.replacements);
-    const count = toBind(sql.count, sql.replacements);
-    const [rows, total] = await Promise.all([pool.query(page.text, page.values), pool.query(count.text, count.values)]);
-    const body = JSON.stringify({ items: rows.rows, page: query.data.page, pageSize: query.data.pageSize, total: total.rows[0]?.total ?? 0 });
+    const page = toBindParameters(sql.page, sql.replacements);
+    const count = toBindParameters(sql.count, sql.replacements);
+    // As the route: the total rides on every row of the page; a page past the end counts apart.
+    const rows = await pool.query({ name: statementName(page.text), text: page.text, values: page.values });
+    const total = rows.rows.length
+      ? rows.rows[0].list_total
+      : (await pool.query({ name: statementName(count.text), text: count.text, values: count.values })).rows[0]?.total;
+    const body = JSON.stringify({ items: rows.rows, page: query.data.page, pageSize: query.data.pageSize, total: total ?? 0 });
     res.writeHead(200, { "content-type": "application/json" }).end(body);
   } catch (error) {
     console.error(error);

@@ -58,7 +58,7 @@ export function createApp(config: AppConfig, options: AppOptions = {}): Express 
   api.use("/auth", createAuthRouter(config, options.rateLimitPrefix ? { rateLimitPrefix: options.rateLimitPrefix } : {}));
   api.use("/me", session, createMeRouter());
   // Shop-scoped first: every /api/shops/:shopId/... request passes the membership check.
-  api.use("/shops/:shopId", session, requireShopRole("operator"), requireWritableShop, createShopScopedRouter(config));
+  api.use("/shops/:shopId", requireSession(config, { withShopMembership: true }), requireShopRole("operator"), requireWritableShop, createShopScopedRouter(config));
   api.use("/shops", session, createShopsRouter());
   api.use(apiNotFound);
 

@@ -10,6 +10,7 @@ import * as m0020 from "./migrations/0020-team-and-billing.js";
 import * as m0030 from "./migrations/0030-vibration-profiles.js";
 import * as m0040 from "./migrations/0040-audit-log.js";
 import * as m0041 from "./migrations/0041-recipe-filter-newest-first-indexes.js";
+import * as m0042 from "./migrations/0042-recipe-search-per-shop.js";
 import { syncGlobalMaterials } from "../modules/materials/global-materials.sync.js";
 
 type Migration = { up: MigrationFn<Sequelize>; down: MigrationFn<Sequelize> };
@@ -25,6 +26,7 @@ const migrations: Array<{ name: string } & Migration> = [
   { name: "0030-vibration-profiles", ...m0030 },
   { name: "0040-audit-log", ...m0040 },
   { name: "0041-recipe-filter-newest-first-indexes", ...m0041 },
+  { name: "0042-recipe-search-per-shop", ...m0042 },
 ];
 
 // Any constant shared by every API instance; serialises concurrent start-ups on one database.

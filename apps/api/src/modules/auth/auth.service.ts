@@ -7,11 +7,10 @@ import { recordAuditEvent } from "../audit/audit.service.js";
 import {
   createUser,
   findCredentialsByEmail,
-  findUserById,
   findUserIdByEmail,
   updateUser,
 } from "../users/users.repository.js";
-import { isSessionRevoked, revokeSession } from "./auth.repository.js";
+import { findSessionHolder, revokeSession, type SessionHolder } from "./auth.repository.js";
 import { burnPasswordCheck, hashPassword, verifyPassword } from "./password.js";
 import type { SessionClaims } from "./session-token.js";
 
@@ -54,14 +53,21 @@ export async function logIn(body: LoginBody): Promise<{ id: string; sessionVersi
 
 /**
  * The user behind a verified token, provided the token was not signed out and was issued for the
- * user's current session version.
+ * user's current session version; with `shopId`, also the user's membership of that shop (null
+ * when not a member), read in the same round trip.
  */
-export async function resolveSession(claims: SessionClaims): Promise<SessionUser> {
-  const [user, revoked] = await Promise.all([findUserById(claims.sub), isSessionRevoked(claims.jti)]);
-  if (!user || revoked || user.sessionVersion !== claims.sv) {
+export async function resolveSession(
+  claims: SessionClaims,
+  shopId: string | null = null,
+): Promise<{ user: SessionUser; membership: SessionHolder["membership"] }> {
+  const holder = await findSessionHolder(claims.sub, claims.jti, shopId);
+  if (!holder || holder.revoked || holder.sessionVersion !== claims.sv) {
     throw AppError.unauthenticated("Your session has ended. Sign in again.");
   }
-  return { id: user.id, email: user.email, name: user.name, sessionVersion: user.sessionVersion };
+  return {
+    user: { id: holder.id, email: holder.email, name: holder.name, sessionVersion: holder.sessionVersion },
+    membership: holder.membership,
+  };
 }
 
 /** Signs out one session: its token is refused from now on. */

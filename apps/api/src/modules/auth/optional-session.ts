@@ -10,7 +10,7 @@ export async function optionalSessionUser(req: Request, config: AppConfig): Prom
   const token = readSessionCookie(req);
   if (!token) return null;
   try {
-    return await resolveSession(verifySessionToken(token, config.jwtSecret));
+    return (await resolveSession(verifySessionToken(token, config.jwtSecret))).user;
   } catch {
     return null;
   }

@@ -12,6 +12,7 @@ import {
   type RecipeResultSummary,
   type RecipeStatus,
 } from "@ringdown/contracts";
+import { preparedSelect } from "../../db/prepared.js";
 import { getSequelize, type Tx } from "../../db/sequelize.js";
 import { RecipeModel, RecipeRevisionModel, RecipeTransitionModel } from "./recipe.model.js";
 
@@ -106,7 +107,8 @@ function likePattern(q: string): string {
 
 /** The WHERE clause of a list query and its replacements (shared by the page and the count). */
 function listWhere(shopId: string, query: RecipeListQuery, approvedOnly: boolean): { sql: string; replacements: Record<string, unknown> } {
-  const parts = ["r.shop_id = :shopId", query.deleted ? "r.deleted_at IS NOT NULL" : "r.deleted_at IS NULL"];
+  const life = query.deleted ? "deleted_at IS NOT NULL" : "deleted_at IS NULL";
+  const parts = ["r.shop_id = :shopId", `r.${life}`];
   const replacements: Record<string, unknown> = { shopId };
   if (approvedOnly) parts.push("r.status = 'approved'");
   if (query.status) {
@@ -130,12 +132,17 @@ function listWhere(shopId: string, query: RecipeListQuery, approvedOnly: boolean
     replacements.operation = query.operation;
   }
   if (query.q) {
-    // Each arm can use an index (trigram indexes on name and notes; the shop's few matching
-    // machines, cutters and materials looked up first, then their recipes by id).
-    parts.push(`(r.name ILIKE :q OR r.notes ILIKE :q
-      OR r.machine_id = ANY (ARRAY(SELECT id FROM machines WHERE shop_id = :shopId AND name ILIKE :q))
-      OR r.cutter_id = ANY (ARRAY(SELECT id FROM cutters WHERE shop_id = :shopId AND name ILIKE :q))
-      OR r.material_id = ANY (ARRAY(SELECT id FROM materials WHERE (shop_id = :shopId OR shop_id IS NULL) AND name ILIKE :q)))`);
+    // One arm per field, each served by an index of this shop's rows (migration 0042's trigram
+    // indexes on name and notes; the shop's few matching machines, cutters and materials looked up
+    // first, then their recipes through the filter indexes). One OR over all five would make the
+    // planner read every recipe of the shop.
+    const ofShop = `SELECT id FROM recipes WHERE shop_id = :shopId AND ${life}`;
+    parts.push(`r.id IN (
+      ${ofShop} AND name ILIKE :q
+      UNION ${ofShop} AND notes ILIKE :q
+      UNION ${ofShop} AND machine_id IN (SELECT id FROM machines WHERE shop_id = :shopId AND name ILIKE :q)
+      UNION ${ofShop} AND cutter_id IN (SELECT id FROM cutters WHERE shop_id = :shopId AND name ILIKE :q)
+      UNION ${ofShop} AND material_id IN (SELECT id FROM materials WHERE (shop_id = :shopId OR shop_id IS NULL) AND name ILIKE :q))`);
     replacements.q = likePattern(query.q);
   }
   return { sql: parts.join(" AND "), replacements };
@@ -145,26 +152,29 @@ function listWhere(shopId: string, query: RecipeListQuery, approvedOnly: boolean
  * The list query's SQL (exported so a test can EXPLAIN exactly what the route runs). The page of
  * ids is found first from the recipes table (plus the one library table a name sort needs), which
  * the list indexes of migration 0010 serve in order or cover outright; the names and counts are
- * then joined for those rows only.
+ * then joined for those rows only. Every row of `page` also carries the total (`list_total`,
+ * counted once), so a list takes one round trip; `count` is for a page past the end, which has no
+ * rows to carry it.
  */
 export function recipeListSql(shopId: string, query: RecipeListQuery, approvedOnly: boolean): { page: string; count: string; replacements: Record<string, unknown> } {
   const where = listWhere(shopId, query, approvedOnly);
   const sort = SORT_SQL[query.sort];
   const dir = query.order === "asc" ? "ASC" : "DESC";
   const replacements = { ...where.replacements, limit: query.pageSize, offset: (query.page - 1) * query.pageSize };
-  const page = `SELECT ${RECIPE_COLUMNS}
+  const count = `SELECT count(*) AS total FROM recipes r WHERE ${where.sql}`;
+  const page = `SELECT ${RECIPE_COLUMNS}, (${count}) AS list_total
     FROM (SELECT r.id, ${sort.key} AS sort_key FROM recipes r ${sort.join}
            WHERE ${where.sql} ORDER BY ${sort.key} ${dir}, r.id ${dir} LIMIT :limit OFFSET :offset) AS page
     JOIN recipes r ON r.id = page.id ${RECIPE_JOINS}
     ORDER BY page.sort_key ${dir}, r.id ${dir}`;
-  const count = `SELECT count(*) AS total FROM recipes r WHERE ${where.sql}`;
   return { page, count, replacements };
 }
 
 export async function listRecipes(shopId: string, query: RecipeListQuery, approvedOnly: boolean): Promise<{ items: Recipe[]; total: number }> {
   const sql = recipeListSql(shopId, query, approvedOnly);
-  const [rows, count] = await Promise.all([select(sql.page, sql.replacements), select(sql.count, sql.replacements)]);
-  return { items: rows.map(toRecipe), total: Number(count[0]?.total ?? 0) };
+  const rows = await preparedSelect(sql.page, sql.replacements);
+  const total = rows.length ? rows[0]!.list_total : (await preparedSelect<{ total: number }>(sql.count, sql.replacements))[0]?.total;
+  return { items: rows.map(toRecipe), total: Number(total ?? 0) };
 }
 
 /** The fields a recipe row and a revision row share. */
