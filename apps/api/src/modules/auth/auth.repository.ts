@@ -1,6 +1,6 @@
-import { Op, QueryTypes } from "sequelize";
+import { Op } from "sequelize";
 import type { Role } from "@ringdown/contracts";
-import { getSequelize } from "../../db/sequelize.js";
+import { preparedSelect } from "../../db/prepared.js";
 import { RevokedSessionModel } from "./revoked-session.model.js";
 
 /** What a request's session cookie stands for, read in one round trip. */
@@ -18,10 +18,10 @@ export interface SessionHolder {
 /**
  * The user `userId`, whether the token `tokenId` was signed out and, when `shopId` is given, the
  * user's membership of that shop: every request on a shop's route needs all three, so they come
- * back from one statement instead of three. Null when there is no such user.
+ * back from one (prepared) statement instead of three. Null when there is no such user.
  */
 export async function findSessionHolder(userId: string, tokenId: string, shopId: string | null): Promise<SessionHolder | null> {
-  const [row] = await getSequelize().query<{
+  const [row] = await preparedSelect<{
     id: string;
     email: string;
     name: string;
@@ -39,7 +39,7 @@ export async function findSessionHolder(userId: string, tokenId: string, shopId:
        LEFT JOIN memberships m ON m.user_id = u.id AND m.shop_id = :shopId
        LEFT JOIN shops s ON s.id = m.shop_id
       WHERE u.id = :userId`,
-    { replacements: { userId, tokenId, shopId }, type: QueryTypes.SELECT },
+    { userId, tokenId, shopId },
   );
   if (!row) return null;
   return {

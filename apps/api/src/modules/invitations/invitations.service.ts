@@ -150,18 +150,25 @@ export interface Acceptance {
   created: boolean;
 }
 
+function assertInvitationOpen(invitation: InvitationRecord | null): InvitationRecord {
+  if (!invitation) throw AppError.notFound("This invitation link is not valid. Check that it was copied completely.");
+  if (invitation.status !== "pending") throw AppError.conflict(closedMessages[invitation.status]);
+  return invitation;
+}
+
 /**
  * Uses an invitation once: a signed-in person with the invited address joins the shop; someone
  * without an account creates one (name and password) and joins. The invitation row is locked, so
  * two tabs accepting at once cannot both succeed.
  */
 export async function acceptInvitation(token: string, body: AcceptInvitationBody, signedIn: SessionUser | null, ip: string | null = null): Promise<Acceptance> {
-  // Hash outside the transaction: bcrypt takes a few hundred milliseconds on purpose.
+  const tokenHash = hashLinkToken(token);
+  // A link that cannot be accepted is refused before the password hash (bcrypt takes a few hundred
+  // milliseconds on purpose, outside the transaction); the check is repeated under the row lock.
+  assertInvitationOpen(await findInvitationByTokenHash(tokenHash));
   const passwordHash = !signedIn && body.password ? await hashPassword(body.password) : null;
   return inTransaction(async (tx) => {
-    const invitation = await findInvitationByTokenHash(hashLinkToken(token), tx);
-    if (!invitation) throw AppError.notFound("This invitation link is not valid. Check that it was copied completely.");
-    if (invitation.status !== "pending") throw AppError.conflict(closedMessages[invitation.status]);
+    const invitation = assertInvitationOpen(await findInvitationByTokenHash(tokenHash, tx));
     await lockShop(invitation.shopId, tx);
 
     let userId: string;

@@ -43,17 +43,25 @@ export async function describeResetLink(token: string): Promise<PasswordResetLin
   return { status, expiresAt: found.expiresAt.toISOString() };
 }
 
+function assertResetTokenUsable<T extends { usedAt: Date | null; expiresAt: Date }>(found: T | null): T {
+  if (!found) throw AppError.notFound(INVALID);
+  if (found.usedAt) throw AppError.conflict(USED);
+  if (found.expiresAt.getTime() <= Date.now()) throw AppError.conflict(EXPIRED);
+  return found;
+}
+
 /**
  * Sets the new password once per link and ends every session of the person (the caller signs in
  * the browser that made the change with a fresh session).
  */
 export async function resetPassword(token: string, password: string): Promise<{ id: string; sessionVersion: number }> {
+  const tokenHash = hashLinkToken(token);
+  // A link that cannot work is refused before the deliberately slow password hash, so made-up
+  // links cost the server nothing; the check is repeated under the row lock below.
+  assertResetTokenUsable(await findResetToken(tokenHash));
   const passwordHash = await hashPassword(password);
   return inTransaction(async (tx) => {
-    const found = await findResetToken(hashLinkToken(token), tx);
-    if (!found) throw AppError.notFound(INVALID);
-    if (found.usedAt) throw AppError.conflict(USED);
-    if (found.expiresAt.getTime() <= Date.now()) throw AppError.conflict(EXPIRED);
+    const found = assertResetTokenUsable(await findResetToken(tokenHash, tx));
     await setPasswordHash(found.userId, passwordHash, tx);
     await markResetTokenUsed(found.id, tx);
     await bumpSessionVersion(found.userId, tx);
