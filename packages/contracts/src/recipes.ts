@@ -1,4 +1,5 @@
 import { z } from "zod";
+import { unitSystems } from "./library.js";
 import { pageOf, paginationQuerySchema } from "./pagination.js";
 
 const uuid = z.string().uuid();
@@ -312,6 +313,11 @@ export const shopExportQuerySchema = z.object({ format: z.enum(["json"], { error
 export const shopExportEntities = ["cutters", "assemblies", "recipes", "cut-logs"] as const;
 export const shopExportEntitySchema = z.enum(shopExportEntities);
 export type ShopExportEntity = z.infer<typeof shopExportEntitySchema>;
+export const shopExportCsvQuerySchema = z.object({
+  /** metric: mm, mm/min, mm³/min; imperial: in, in/min, in³/min (1 in = 25.4 mm exactly). rpm, W and % are the same in both. */
+  units: z.enum(unitSystems, { error: "Use units=metric or units=imperial" }).default("metric"),
+});
+export type ShopExportCsvQuery = z.infer<typeof shopExportCsvQuerySchema>;
 
 /** Everything a shop owns, as GET export?format=json returns it (records in their API shapes). */
 export const shopExportSchema = z.object({

@@ -196,6 +196,7 @@ const SHOP_INPUTS: Record<string, RouteInput> = {
   "POST /recipes/:recipeId/ladder/score": { body: () => ({ index: 0, edgeQuality: 4, chips: "chips", sound: 4, heat: 2, measuredSizeMm: 6.01, note: "" }) },
   "POST /recipes/:recipeId/ladder/choose": { body: () => ({ index: 1, changeNote: "" }) },
   "GET /export": { query: ["format"] },
+  "GET /export/:file": { query: ["units"] },
   "POST /machines/:machineId/stiffness-readings": { body: () => ({ xMm: 100, yMm: 100, zMm: 0, direction: "x", forceN: 50, deflectionMm: 0.1, measuredAt: "2026-03-02" }) },
   "GET /machines/:machineId/stiffness-map": { query: ["cells"] },
   "POST /machines/:machineId/backlash-readings": { body: () => ({ axis: "y", backlashMm: 0.03, measuredAt: "2026-03-02" }) },

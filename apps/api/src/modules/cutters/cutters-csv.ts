@@ -267,14 +267,29 @@ function readRow(
   return { errors, warnings: [], cutter: ok ? { ...parsed.data, status: status ?? options.defaultStatus } : null };
 }
 
-/** Formats a number cell: shortest exact form for mm; inches rounded to 1e-6 in (0.0000254 mm). */
-function numberCell(value: number | null, inches = false): string {
-  if (value === null) return "";
-  return inches ? String(Number((value / MM_PER_INCH).toFixed(6))) : String(value);
+/** Decimal places of an inch length in an export: 1e-6 in (0.0000254 mm). */
+export const INCH_DECIMALS = 6;
+
+/** A number rounded to `decimals` places, without trailing zeros ("0.25", not "0.250000"). */
+export function roundedCell(value: number, decimals: number): string {
+  return String(Number(value.toFixed(decimals)));
 }
 
-function textCell(value: string): string {
-  return FORMULA_START.test(value) ? `'${value}` : value;
+/** Formats a number cell: shortest exact form for mm; inches rounded to INCH_DECIMALS places. */
+function numberCell(value: number | null, inches = false): string {
+  if (value === null) return "";
+  return inches ? roundedCell(value / MM_PER_INCH, INCH_DECIMALS) : String(value);
+}
+
+/** A text cell a spreadsheet shows as text: one that would start a formula gets a leading `'`. */
+export function textCell(value: string | null | undefined): string {
+  const text = value ?? "";
+  return FORMULA_START.test(text) ? `'${text}` : text;
+}
+
+/** CSV text of a header and rows: UTF-8 with a byte-order mark (so spreadsheets read it as UTF-8), CRLF line ends (RFC 4180). */
+export function csvText(header: string[], rows: string[][]): string {
+  return `\uFEFF${stringify([header, ...rows], { record_delimiter: "\r\n" })}`;
 }
 
 /** Header row of an export in the given units. */
@@ -282,7 +297,7 @@ export function exportHeaders(units: UnitChoice): string[] {
   return columns.map((c) => (c.kind === "length" ? `${c.header}_${units === "imperial" ? "in" : "mm"}` : c.header));
 }
 
-/** The cutters as CSV text (UTF-8, with a byte-order mark so spreadsheets read it as UTF-8). */
+/** The cutters as CSV text. */
 export function cuttersToCsv(cutters: Cutter[], units: UnitChoice): string {
   const rows = cutters.map((c) =>
     columns.map((col) => {
@@ -300,5 +315,5 @@ export function cuttersToCsv(cutters: Cutter[], units: UnitChoice): string {
       }
     }),
   );
-  return `\uFEFF${stringify([exportHeaders(units), ...rows], { record_delimiter: "\r\n" })}`;
+  return csvText(exportHeaders(units), rows);
 }

@@ -1,5 +1,5 @@
 import type { Router } from "express";
-import { shopExportEntitySchema, shopExportQuerySchema } from "@ringdown/contracts";
+import { shopExportCsvQuerySchema, shopExportEntitySchema, shopExportQuerySchema } from "@ringdown/contracts";
 import { AppError } from "../../http/app-error.js";
 import { currentShop } from "../../http/locals.js";
 import { inputOf, validate } from "../../http/validate.js";
@@ -8,6 +8,7 @@ import { exportShopCsv, exportShopJson, recordShopExport } from "./shop-export.s
 import { requestActor } from "../audit/audit-actor.js";
 
 const jsonInput = { query: shopExportQuerySchema };
+const csvInput = { query: shopExportCsvQuerySchema };
 
 /** A file-name-safe form of the shop's name. */
 function slug(name: string): string {
@@ -17,7 +18,8 @@ const today = (): string => new Date().toISOString().slice(0, 10);
 
 /**
  * GET /api/shops/:shopId/export?format=json and /export/<cutters|assemblies|recipes|cut-logs>.csv:
- * everything the shop owns, for owners and tooling managers.
+ * everything the shop owns, for owners and tooling managers. The JSON is SI throughout; the CSV files
+ * take `?units=metric|imperial` (default metric) and name each column's unit in its header.
  */
 export function registerShopExportRoutes(router: Router): void {
   const curators = requireShopRole("tooling_manager");
@@ -31,15 +33,17 @@ export function registerShopExportRoutes(router: Router): void {
     res.json(body);
   });
 
-  router.get("/export/:file", curators, async (req, res) => {
+  router.get("/export/:file", curators, validate(csvInput), async (req, res) => {
+    const { units } = inputOf(res, csvInput).query;
     const match = /^([a-z-]+)\.csv$/.exec(String(req.params.file));
     const entity = shopExportEntitySchema.safeParse(match?.[1]);
     if (!entity.success) throw AppError.notFound("No such export. Use cutters.csv, assemblies.csv, recipes.csv or cut-logs.csv.");
     const { shop } = currentShop(res);
-    const text = await exportShopCsv(shop.id, entity.data);
+    const text = await exportShopCsv(shop.id, entity.data, units);
     await recordShopExport(shop, requestActor(res), entity.data);
+    const unitsSuffix = units === "imperial" ? "-inch" : "";
     res.setHeader("Content-Type", "text/csv; charset=utf-8");
-    res.setHeader("Content-Disposition", `attachment; filename="ringdown-${slug(shop.name)}-${entity.data}-${today()}.csv"`);
+    res.setHeader("Content-Disposition", `attachment; filename="ringdown-${slug(shop.name)}-${entity.data}-${today()}${unitsSuffix}.csv"`);
     res.send(text);
   });
 }

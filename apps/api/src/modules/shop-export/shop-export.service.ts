@@ -2,9 +2,9 @@
  * Everything a shop owns, out of Ringdown: one JSON document (records in their API shapes, recipes
  * with every revision and status change) and CSV files per entity for spreadsheets. No lock-in.
  */
-import { stringify } from "csv-stringify/sync";
-import type { Cutter, CutLog, Recipe, ShopExport, ShopExportEntity } from "@ringdown/contracts";
-import { cuttersToCsv } from "../cutters/cutters-csv.js";
+import type { Assembly, Cutter, CutLog, Recipe, ShopExport, ShopExportEntity, UnitSystem } from "@ringdown/contracts";
+import { toUnitSystem } from "@ringdown/machining";
+import { csvText, cuttersToCsv, INCH_DECIMALS, roundedCell, textCell } from "../cutters/cutters-csv.js";
 import { listAllCutLogs } from "../cut-logs/cut-logs.repository.js";
 import { listAllLadders } from "../ladders/ladders.repository.js";
 import {
@@ -76,72 +76,132 @@ function groupBy<T>(items: T[], key: (item: T) => string): Map<string, T[]> {
   return map;
 }
 
-// Spreadsheets run cells that start with these as formulas; text cells get a leading apostrophe.
-const FORMULA_START = /^[=+\-@\t\r]/;
-const textCell = (value: string | null | undefined): string => {
-  const v = value ?? "";
-  return FORMULA_START.test(v) ? `'${v}` : v;
+/** The measured quantities the CSV files hold, stored in the engine's base units (mm, mm/min, mm³/min). */
+type Measured = "length" | "feedRate" | "volumeRate";
+
+/**
+ * Header suffix of each measured quantity per unit system, and the decimal places of its imperial
+ * value. Values are converted with the engine's one units table (1 in = 25.4 mm exactly, NIST SP 811;
+ * the international yard and pound agreement of 1959). Metric values stay as stored.
+ */
+const measuredColumns: Record<Measured, { suffix: Record<UnitSystem, string>; inchDecimals: number }> = {
+  // Inch lengths as in the cutter list export: 0.000001 in, fine enough for chip loads and runout.
+  length: { suffix: { metric: "mm", imperial: "in" }, inchDecimals: INCH_DECIMALS },
+  feedRate: { suffix: { metric: "mm_per_min", imperial: "in_per_min" }, inchDecimals: 4 },
+  volumeRate: { suffix: { metric: "mm3_per_min", imperial: "in3_per_min" }, inchDecimals: 4 },
 };
-const numberCell = (value: number | null | undefined): string => (value === null || value === undefined ? "" : String(Number(value.toPrecision(10))));
 
-function csv(header: string[], rows: string[][]): string {
-  // UTF-8 with a byte-order mark so spreadsheets read it as UTF-8; CRLF line ends (RFC 4180).
-  return `\uFEFF${stringify([header, ...rows], { record_delimiter: "\r\n" })}`;
+/** One column of an export: its header (without the unit when `measured`), and its value for a row. */
+type Column<T> = { header: string; value: (row: T) => string | number | boolean | null | undefined; measured?: Measured };
+
+const metricNumberCell = (value: number): string => String(Number(value.toPrecision(10)));
+
+function cellOf(value: string | number | boolean | null | undefined, measured: Measured | undefined, units: UnitSystem): string {
+  if (value === null || value === undefined) return "";
+  if (typeof value === "boolean") return String(value);
+  if (typeof value === "string") return textCell(value);
+  if (!measured || units === "metric") return metricNumberCell(value);
+  return roundedCell(toUnitSystem({ value, quantity: measured, system: units }).value, measuredColumns[measured].inchDecimals);
 }
 
-function recipesCsv(recipes: Recipe[], holders: Map<string, string>): string {
-  const header = [
-    "id", "name", "status", "revision", "machine", "cutter", "holder", "material", "operation",
-    "axial_depth_mm", "radial_depth_mm", "work_position_x_mm", "work_position_y_mm",
-    "work_region_x_from_mm", "work_region_x_to_mm", "work_region_y_from_mm", "work_region_y_to_mm", "milling_direction",
-    "chosen_rpm", "chosen_chip_load_mm", "rpm", "feed_mm_per_min", "chip_load_mm", "removal_rate_mm3_per_min",
-    "power_w", "deflection_mm", "binding_limit", "stable", "cut_logs", "author", "notes", "last_comment", "created_at", "updated_at", "deleted_at",
-  ];
-  const rows = recipes.map((r) => [
-    r.id, textCell(r.name), r.status, String(r.revision), textCell(r.machineName), textCell(r.cutterName), textCell(holders.get(r.assemblyId)),
-    textCell(r.materialName), r.operation,
-    numberCell(r.params.axialDepthMm), numberCell(r.params.radialDepthMm), numberCell(r.params.workPositionXMm), numberCell(r.params.workPositionYMm),
-    numberCell(r.params.workRegion?.xMinMm), numberCell(r.params.workRegion?.xMaxMm), numberCell(r.params.workRegion?.yMinMm), numberCell(r.params.workRegion?.yMaxMm),
-    r.params.millingDirection, numberCell(r.params.rpmOverride), numberCell(r.params.chipLoadOverrideMm),
-    numberCell(r.result.rpm), numberCell(r.result.feedMmPerMin), numberCell(r.result.chipLoadMm), numberCell(r.result.materialRemovalRateMm3PerMin),
-    numberCell(r.result.powerW), numberCell(r.result.totalDeflectionMm), textCell(r.result.bindingLimit), r.result.stable === null ? "not checked" : String(r.result.stable),
-    String(r.cutLogCount), textCell(r.authorName), textCell(r.notes), textCell(r.lastComment), r.createdAt, r.updatedAt, r.deletedAt ?? "",
-  ]);
-  return csv(header, rows);
+/** The rows as CSV in the chosen units: a measured column's header ends in its unit (`_mm`, `_in_per_min`…). */
+function table<T>(columns: Array<Column<T>>, rows: T[], units: UnitSystem): string {
+  const header = columns.map((c) => (c.measured ? `${c.header}_${measuredColumns[c.measured].suffix[units]}` : c.header));
+  return csvText(header, rows.map((row) => columns.map((c) => cellOf(c.value(row), c.measured, units))));
 }
 
-function cutLogsCsv(logs: CutLog[], machineNames: Map<string, string>, materialNames: Map<string, string>): string {
-  const header = [
-    "id", "recipe_id", "recipe", "recipe_revision", "machine", "material", "cutter", "outcome", "actual_rpm", "actual_feed_mm_per_min",
-    "axial_depth_mm", "radial_depth_mm", "feed_override_pct", "note", "logged_by", "photos", "created_at",
-  ];
-  const rows = logs.map((l) => [
-    l.id, l.recipeId, textCell(l.recipeName), String(l.recipeRevision), textCell(machineNames.get(l.machineId)), textCell(materialNames.get(l.materialId)),
-    textCell(l.cutterName), l.outcome, numberCell(l.actualRpm), numberCell(l.actualFeedMmPerMin), numberCell(l.axialDepthMm), numberCell(l.radialDepthMm),
-    numberCell(l.feedOverridePct), textCell(l.note), textCell(l.userName), String(l.photos.length), l.createdAt,
-  ]);
-  return csv(header, rows);
-}
+const recipeColumns = (holders: Map<string, string>): Array<Column<Recipe>> => [
+  { header: "id", value: (r) => r.id },
+  { header: "name", value: (r) => r.name },
+  { header: "status", value: (r) => r.status },
+  { header: "revision", value: (r) => r.revision },
+  { header: "machine", value: (r) => r.machineName },
+  { header: "cutter", value: (r) => r.cutterName },
+  { header: "holder", value: (r) => holders.get(r.assemblyId) },
+  { header: "material", value: (r) => r.materialName },
+  { header: "operation", value: (r) => r.operation },
+  { header: "axial_depth", value: (r) => r.params.axialDepthMm, measured: "length" },
+  { header: "radial_depth", value: (r) => r.params.radialDepthMm, measured: "length" },
+  { header: "work_position_x", value: (r) => r.params.workPositionXMm, measured: "length" },
+  { header: "work_position_y", value: (r) => r.params.workPositionYMm, measured: "length" },
+  { header: "work_region_x_from", value: (r) => r.params.workRegion?.xMinMm, measured: "length" },
+  { header: "work_region_x_to", value: (r) => r.params.workRegion?.xMaxMm, measured: "length" },
+  { header: "work_region_y_from", value: (r) => r.params.workRegion?.yMinMm, measured: "length" },
+  { header: "work_region_y_to", value: (r) => r.params.workRegion?.yMaxMm, measured: "length" },
+  { header: "milling_direction", value: (r) => r.params.millingDirection },
+  { header: "chosen_rpm", value: (r) => r.params.rpmOverride },
+  // Chip loads are per tooth.
+  { header: "chosen_chip_load", value: (r) => r.params.chipLoadOverrideMm, measured: "length" },
+  { header: "rpm", value: (r) => r.result.rpm },
+  { header: "feed", value: (r) => r.result.feedMmPerMin, measured: "feedRate" },
+  { header: "chip_load", value: (r) => r.result.chipLoadMm, measured: "length" },
+  { header: "removal_rate", value: (r) => r.result.materialRemovalRateMm3PerMin, measured: "volumeRate" },
+  // Watts in both systems (the header says so).
+  { header: "power_w", value: (r) => r.result.powerW },
+  { header: "deflection", value: (r) => r.result.totalDeflectionMm, measured: "length" },
+  { header: "binding_limit", value: (r) => r.result.bindingLimit },
+  { header: "stable", value: (r) => (r.result.stable === null ? "not checked" : r.result.stable) },
+  { header: "cut_logs", value: (r) => r.cutLogCount },
+  { header: "author", value: (r) => r.authorName },
+  { header: "notes", value: (r) => r.notes },
+  { header: "last_comment", value: (r) => r.lastComment },
+  { header: "created_at", value: (r) => r.createdAt },
+  { header: "updated_at", value: (r) => r.updatedAt },
+  { header: "deleted_at", value: (r) => r.deletedAt },
+];
 
-/** One entity of the shop as CSV (live rows; the JSON export also carries deleted ones). */
-export async function exportShopCsv(shopId: string, entity: ShopExportEntity): Promise<string> {
+const cutLogColumns = (machineNames: Map<string, string>, materialNames: Map<string, string>): Array<Column<CutLog>> => [
+  { header: "id", value: (l) => l.id },
+  { header: "recipe_id", value: (l) => l.recipeId },
+  { header: "recipe", value: (l) => l.recipeName },
+  { header: "recipe_revision", value: (l) => l.recipeRevision },
+  { header: "machine", value: (l) => machineNames.get(l.machineId) },
+  { header: "material", value: (l) => materialNames.get(l.materialId) },
+  { header: "cutter", value: (l) => l.cutterName },
+  { header: "outcome", value: (l) => l.outcome },
+  { header: "actual_rpm", value: (l) => l.actualRpm },
+  { header: "actual_feed", value: (l) => l.actualFeedMmPerMin, measured: "feedRate" },
+  { header: "axial_depth", value: (l) => l.axialDepthMm, measured: "length" },
+  { header: "radial_depth", value: (l) => l.radialDepthMm, measured: "length" },
+  { header: "feed_override_pct", value: (l) => l.feedOverridePct },
+  { header: "note", value: (l) => l.note },
+  { header: "logged_by", value: (l) => l.userName },
+  { header: "photos", value: (l) => l.photos.length },
+  { header: "created_at", value: (l) => l.createdAt },
+];
+
+type ShopAssembly = Assembly & { machineName: string; cutterName: string };
+
+const assemblyColumns: Array<Column<ShopAssembly>> = [
+  { header: "id", value: (a) => a.id },
+  { header: "machine", value: (a) => a.machineName },
+  { header: "cutter", value: (a) => a.cutterName },
+  { header: "holder", value: (a) => a.holder },
+  { header: "stickout", value: (a) => a.stickoutMm, measured: "length" },
+  { header: "runout", value: (a) => a.runoutMm, measured: "length" },
+  { header: "notes", value: (a) => a.notes },
+  { header: "created_at", value: (a) => a.createdAt },
+  { header: "updated_at", value: (a) => a.updatedAt },
+];
+
+/**
+ * One entity of the shop as CSV (live rows; the JSON export also carries deleted ones), measured
+ * columns in the chosen units.
+ */
+export async function exportShopCsv(shopId: string, entity: ShopExportEntity, units: UnitSystem): Promise<string> {
   switch (entity) {
     case "cutters": {
       const cutters: Cutter[] = (await listShopCutters(shopId)).filter((c) => !c.deletedAt);
       // The same column set the cutter import reads, so this file imports back as it is.
-      return cuttersToCsv(cutters, "metric");
+      return cuttersToCsv(cutters, units);
     }
     case "assemblies": {
       const list = (await listShopAssemblies(shopId)).filter((a) => !a.deletedAt);
-      const header = ["id", "machine", "cutter", "holder", "stickout_mm", "runout_mm", "notes", "created_at", "updated_at"];
-      return csv(
-        header,
-        list.map((a) => [a.id, textCell(a.machineName), textCell(a.cutterName), textCell(a.holder), numberCell(a.stickoutMm), numberCell(a.runoutMm), textCell(a.notes), a.createdAt, a.updatedAt]),
-      );
+      return table(assemblyColumns, list, units);
     }
     case "recipes": {
       const [recipes, assemblies] = await Promise.all([listAllRecipes(shopId), listShopAssemblies(shopId)]);
-      return recipesCsv(recipes.filter((r) => !r.deletedAt), new Map(assemblies.map((a) => [a.id, a.holder])));
+      return table(recipeColumns(new Map(assemblies.map((a) => [a.id, a.holder]))), recipes.filter((r) => !r.deletedAt), units);
     }
     case "cut-logs": {
       const [logs, machines, materials, globals] = await Promise.all([
@@ -150,7 +210,9 @@ export async function exportShopCsv(shopId: string, entity: ShopExportEntity): P
         listShopMaterials(shopId),
         listGlobalMaterialsUsedBy(shopId),
       ]);
-      return cutLogsCsv(logs, new Map(machines.map((m) => [m.id, m.name])), new Map([...materials, ...globals].map((m) => [m.id, m.name])));
+      const machineNames = new Map(machines.map((m) => [m.id, m.name]));
+      const materialNames = new Map([...materials, ...globals].map((m) => [m.id, m.name]));
+      return table(cutLogColumns(machineNames, materialNames), logs, units);
     }
   }
 }
