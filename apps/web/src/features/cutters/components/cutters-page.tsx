@@ -9,7 +9,6 @@ import {
 import type { ColumnDef, PaginationState, SortingState, Updater } from "@tanstack/react-table";
 import { Drill, FileUp, Plus } from "lucide-react";
 import { useCallback, useMemo, useState } from "react";
-import { useSearchParams } from "react-router-dom";
 import { Badge } from "@/components/ui/badge";
 import { Button } from "@/components/ui/button";
 import { ConfirmDialog } from "@/components/ui/confirm-dialog";
@@ -22,6 +21,7 @@ import { useActiveShop } from "@/lib/active-shop";
 import { isApiError } from "@/lib/api-client";
 import { useUnitSystem } from "@/lib/auth";
 import { useDocumentTitle } from "@/lib/use-document-title";
+import { useListSearchParams } from "@/lib/use-list-search-params";
 import { useDeleteCutter } from "../api/delete-cutter";
 import { useCutters, type CutterListParams } from "../api/get-cutters";
 import { useRestoreCutter } from "../api/restore-cutter";
@@ -40,7 +40,7 @@ const sortable = new Set<string>(cutterSorts);
 
 /** Filters, sort and page live in the address, so a view can be bookmarked and Back works. */
 function useCutterListState() {
-  const [search, setSearch] = useSearchParams();
+  const { search, update } = useListSearchParams();
   const status = cutterStatusSchema.safeParse(search.get("status"));
   const shape = cutterShapeSchema.safeParse(search.get("shape"));
   const toolMaterial = toolMaterialSchema.safeParse(search.get("toolMaterial"));
@@ -57,24 +57,6 @@ function useCutterListState() {
     toolMaterial: toolMaterial.success ? toolMaterial.data : "",
     deleted: search.get("deleted") === "true",
   };
-
-  const update = useCallback(
-    (changes: Record<string, string | number | boolean | undefined>, resetPage = true) => {
-      setSearch(
-        (prev) => {
-          const next = new URLSearchParams(prev);
-          for (const [key, value] of Object.entries(changes)) {
-            if (value === undefined || value === "" || value === false) next.delete(key);
-            else next.set(key, String(value));
-          }
-          if (resetPage) next.delete("page");
-          return next;
-        },
-        { replace: true },
-      );
-    },
-    [setSearch],
-  );
 
   const params: CutterListParams = {
     page,

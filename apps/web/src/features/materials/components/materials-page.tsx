@@ -2,7 +2,6 @@ import { materialGroupSchema, type Material } from "@ringdown/contracts";
 import type { ColumnDef } from "@tanstack/react-table";
 import { Boxes, Plus, Search } from "lucide-react";
 import { useEffect, useId, useMemo, useState } from "react";
-import { useSearchParams } from "react-router-dom";
 import { Badge } from "@/components/ui/badge";
 import { Button } from "@/components/ui/button";
 import { ConfirmDialog } from "@/components/ui/confirm-dialog";
@@ -17,6 +16,7 @@ import { useActiveShop } from "@/lib/active-shop";
 import { useUnitSystem } from "@/lib/auth";
 import { NUMBER_UNIT_SPACE } from "@/lib/format";
 import { useDocumentTitle } from "@/lib/use-document-title";
+import { useListSearchParams } from "@/lib/use-list-search-params";
 import { useCopyMaterial } from "../api/copy-material";
 import { useDeleteMaterial } from "../api/delete-material";
 import { useMaterials, type MaterialListParams } from "../api/get-materials";
@@ -51,7 +51,7 @@ export function MaterialsPage() {
   const shop = useActiveShop();
   const shopId = shop?.shopId ?? "";
   const mayEdit = shop ? canEditMaterials(shop.role) : false;
-  const [search, setSearch] = useSearchParams();
+  const { search, update } = useListSearchParams();
   const id = useId();
 
   const group = materialGroupSchema.safeParse(search.get("group"));
@@ -62,16 +62,8 @@ export function MaterialsPage() {
   const [text, setText] = useState(q);
   useEffect(() => setText(q), [q]);
 
-  const setParam = (key: string, value: string) =>
-    setSearch(
-      (prev) => {
-        const next = new URLSearchParams(prev);
-        if (value) next.set(key, value);
-        else next.delete(key);
-        return next;
-      },
-      { replace: true },
-    );
+  // The list has no pages: nothing to reset.
+  const setParam = (key: string, value: string) => update({ [key]: value }, false);
   useEffect(() => {
     if (text === q) return;
     const timer = setTimeout(() => setParam("q", text), 300);

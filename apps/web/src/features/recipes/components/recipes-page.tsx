@@ -10,8 +10,8 @@ import {
 } from "@ringdown/contracts";
 import type { ColumnDef, PaginationState, SortingState, Updater } from "@tanstack/react-table";
 import { ClipboardList, RefreshCw, Search, Trash2 } from "lucide-react";
-import { useCallback, useEffect, useId, useMemo, useState } from "react";
-import { Link, useLocation, useNavigate, useSearchParams } from "react-router-dom";
+import { useEffect, useId, useMemo, useState } from "react";
+import { Link, useLocation, useNavigate } from "react-router-dom";
 import { Badge } from "@/components/ui/badge";
 import { Button } from "@/components/ui/button";
 import { DataTable } from "@/components/ui/data-table";
@@ -21,6 +21,7 @@ import { MeasureValue } from "@/components/ui/measure";
 import { Notice } from "@/components/ui/page-header";
 import { Select, type SelectOption } from "@/components/ui/select";
 import { measures } from "@/components/ui/units";
+import { useListSearchParams } from "@/lib/use-list-search-params";
 import { useRecipes, type RecipeListParams } from "../api/get-recipes";
 import { useRestoreDeletedRecipe } from "../api/restore-deleted-recipe";
 import { operationLabels, statusLabels } from "../labels";
@@ -61,8 +62,7 @@ function deletedRecipeOf(state: unknown): DeletedRecipeState["deletedRecipe"] | 
 
 /** Filters, sort and page live in the address: a view can be bookmarked, shared and gone back to. */
 function useRecipeListState() {
-  const [search, setSearch] = useSearchParams();
-  const listPath = useLocation().pathname;
+  const { search, update } = useListSearchParams();
   const id = (key: string) => {
     const v = search.get(key);
     return v && uuidLike.test(v) ? v : "";
@@ -84,29 +84,6 @@ function useRecipeListState() {
     status: status.success ? status.data : "",
     deleted: search.get("deleted") === "true",
   };
-
-  const update = useCallback(
-    (changes: Record<string, string | number | boolean | undefined>, resetPage = true) => {
-      // A late change (a search typed just before a row was opened) must not pull the person back
-      // from the page they went to while this list is still on screen during the transition.
-      if (window.location.pathname !== listPath) return;
-      setSearch(
-        () => {
-          // From the address as it is now, not as it was at the last render: a search typed just
-          // before another filter changes lands after it (debounced) and must not undo it.
-          const next = new URLSearchParams(window.location.search);
-          for (const [key, value] of Object.entries(changes)) {
-            if (value === undefined || value === "" || value === false) next.delete(key);
-            else next.set(key, String(value));
-          }
-          if (resetPage) next.delete("page");
-          return next;
-        },
-        { replace: true },
-      );
-    },
-    [setSearch, listPath],
-  );
 
   const params: RecipeListParams = {
     page,
