@@ -1,4 +1,5 @@
 import type { AuditAction, AuditSubjectType } from "@ringdown/contracts";
+import { measures, type Measure } from "@/components/ui/units";
 
 /** What happened, in a few words, for each action code. */
 export const actionLabels: Record<AuditAction, string> = {
@@ -82,15 +83,18 @@ export const actionGroupOptions = [
   { value: "cut_log.", label: "Cut logs" },
 ] as const;
 
-/** The unit a detail key carries in its name ("xMm" → mm), for showing the number with it. */
-export function unitOfKey(key: string): string | null {
-  if (/NPerMm$/.test(key)) return "N/mm";
-  if (/Mm$/.test(key)) return "mm";
-  if (/Hz$/.test(key)) return "Hz";
-  if (/Kg$/.test(key)) return "kg";
-  if (/Pct$/.test(key)) return "%";
-  if (/Bytes$/.test(key)) return "bytes";
-  if (/[rR]pm$/.test(key)) return "rpm";
+/**
+ * What a detail key measures, from the unit in its name ("xMm" → a length), so the number is shown
+ * with its unit and, for lengths, stiffnesses and masses, in the reader's unit system.
+ */
+export function measureOfKey(key: string): Measure | null {
+  if (/NPerMm$/.test(key)) return measures.stiffness;
+  if (/Mm$/.test(key)) return measures.length;
+  if (/Hz$/.test(key)) return measures.frequency;
+  if (/Kg$/.test(key)) return measures.mass;
+  if (/Pct$/.test(key)) return measures.percent;
+  if (/Bytes$/.test(key)) return { unit: "bytes" };
+  if (/[rR]pm$/.test(key)) return measures.rpm;
   return null;
 }
 

@@ -11,6 +11,7 @@ import { Input } from "@/components/ui/field";
 import { PageHeader } from "@/components/ui/page-header";
 import { Select } from "@/components/ui/select";
 import { useActiveShop } from "@/lib/active-shop";
+import { useUnitSystem } from "@/lib/auth";
 import { useDocumentTitle } from "@/lib/use-document-title";
 import { useAuditEvents, type AuditEventListParams } from "../api/get-audit-events";
 import { actionGroupOptions, actionLabels, subjectLabels } from "../labels";
@@ -115,6 +116,7 @@ export function ChangeHistoryPage() {
 function HistoryForShop({ shopId, shopName }: { shopId: string; shopName: string }) {
   const { filters, params, update, rangeBackwards, filtered } = useHistoryState();
   const list = useAuditEvents(rangeBackwards ? "" : shopId, params);
+  const system = useUnitSystem();
   const id = useId();
 
   // People who appear on this page of the history, for the "Person" filter (includes people
@@ -172,9 +174,9 @@ function HistoryForShop({ shopId, shopName }: { shopId: string; shopName: string
           );
         },
       },
-      { id: "detail", header: "Details", enableSorting: false, cell: (c) => <EventDetail event={c.row.original} /> },
+      { id: "detail", header: "Details", enableSorting: false, cell: (c) => <EventDetail event={c.row.original} system={system} /> },
     ],
-    [],
+    [system],
   );
 
   const pagination: PaginationState = { pageIndex: (params.page ?? 1) - 1, pageSize: params.pageSize ?? 25 };
