@@ -29,10 +29,15 @@ async function focusRing(target: Locator): Promise<string> {
 async function newDraft(page: Page, name: string) {
   const me = (await (await page.request.get("/api/me")).json()) as { activeShopId: string };
   const base = `/api/shops/${me.activeShopId}/recipes`;
-  const drafts = (await (await page.request.get(`${base}?status=draft&pageSize=1`)).json()) as {
-    items: Array<{ assemblyId: string; materialId: string; operation: string; params: unknown }>;
+  const drafts = (await (await page.request.get(`${base}?status=draft&pageSize=1`)).json()) as { items: Array<{ id: string }> };
+  // The list carries no parameters: the recipe itself does.
+  const draft = (await (await page.request.get(`${base}/${drafts.items[0]!.id}`)).json()) as {
+    assemblyId: string;
+    materialId: string;
+    operation: string;
+    params: unknown;
   };
-  const { assemblyId, materialId, operation, params } = drafts.items[0]!;
+  const { assemblyId, materialId, operation, params } = draft;
   const created = await page.request.post(base, { data: { name, assemblyId, materialId, operation, params, notes: "" } });
   expect(created.status()).toBe(201);
 }

@@ -113,7 +113,22 @@ export const recipeSchema = z.object({
   cutLogCount: z.number().int().min(0).default(0),
 });
 export type Recipe = z.infer<typeof recipeSchema>;
-export const recipePageSchema = pageOf(recipeSchema);
+/**
+ * A recipe as the list shows it: no parameters and, of the results, the headline numbers only (the
+ * warnings and limits are on the recipe itself, GET recipes/:id). Keeps a page of 50 small.
+ */
+export const recipeListItemSchema = recipeSchema.omit({ params: true, result: true }).extend({
+  result: recipeResultSummarySchema.pick({
+    rpm: true,
+    feedMmPerMin: true,
+    chipLoadMm: true,
+    materialRemovalRateMm3PerMin: true,
+    powerW: true,
+    stable: true,
+  }),
+});
+export type RecipeListItem = z.infer<typeof recipeListItemSchema>;
+export const recipePageSchema = pageOf(recipeListItemSchema);
 export type RecipePage = z.infer<typeof recipePageSchema>;
 
 export const recipeRevisionSchema = z.object({

@@ -43,7 +43,7 @@ beforeAll(async () => {
   await setStatus(made.d!.id, "trial");
 });
 
-const ids = (page: { items: Recipe[] }) => page.items.map((r) => r.id);
+const ids = (page: { items: Array<{ id: string }> }) => page.items.map((r) => r.id);
 async function list(query: string, who: SignedUp = owner) {
   const res = await who.agent.get(url(query));
   expect(res.status).toBe(200);
@@ -55,6 +55,16 @@ describe("GET recipes (server-side filters, sort and pages)", () => {
     const page = await list("");
     expect(page).toMatchObject({ page: 1, pageSize: 25, total: 4 });
     expect(ids(page)).toEqual([made.d!.id, made.c!.id, made.b!.id, made.a!.id].filter((id) => ids(page).includes(id)));
+  });
+
+  it("gives each row the recipe's headline numbers and leaves parameters and warnings to the recipe itself", async () => {
+    const res = await owner.agent.get(url("?q=Bravo"));
+    const row = res.body.items[0] as Record<string, unknown>;
+    expect(row).not.toHaveProperty("params");
+    expect(row.result).not.toHaveProperty("warnings");
+    const full = recipeSchema.parse((await owner.agent.get(url(`/${made.b!.id}`)).expect(200)).body);
+    const { rpm, feedMmPerMin, chipLoadMm, materialRemovalRateMm3PerMin, powerW, stable } = full.result;
+    expect(recipePageSchema.parse(res.body).items[0]!.result).toEqual({ rpm, feedMmPerMin, chipLoadMm, materialRemovalRateMm3PerMin, powerW, stable });
   });
 
   it("filters by machine, material, cutter, operation and status", async () => {

@@ -4,9 +4,11 @@
  */
 import { Op, QueryTypes } from "sequelize";
 import {
+  recipeListItemSchema,
   recipeSchema,
   type Operation,
   type Recipe,
+  type RecipeListItem,
   type RecipeListQuery,
   type RecipeParams,
   type RecipeResultSummary,
@@ -53,6 +55,51 @@ function toRecipe(r: Row): Recipe {
     revision: r.revision,
     params: storedParams(r.params),
     result: r.result,
+    notes: r.notes,
+    needsRecheck: r.needs_recheck,
+    authorId: r.author_id,
+    authorName: r.author_name,
+    machineName: r.machine_name,
+    cutterName: r.cutter_name,
+    materialName: r.material_name,
+    lastComment: r.last_comment,
+    createdAt: iso(r.created_at),
+    updatedAt: iso(r.updated_at),
+    deletedAt: r.deleted_at ? iso(r.deleted_at) : null,
+    cutLogCount: Number(r.cut_log_count ?? 0),
+  });
+}
+
+/** What a row of the list needs (recipeListItemSchema): the headline numbers out of the stored result. */
+const LIST_COLUMNS = `
+  r.id, r.shop_id, r.name, r.assembly_id, r.machine_id, r.cutter_id, r.material_id, r.operation, r.status,
+  r.revision, r.notes, r.needs_recheck, r.author_id, r.last_comment, r.created_at, r.updated_at, r.deleted_at,
+  r.rpm, r.feed_mm_per_min, (r.result->>'chipLoadMm')::float8 AS chip_load_mm,
+  (r.result->>'materialRemovalRateMm3PerMin')::float8 AS removal_rate_mm3_per_min,
+  (r.result->>'powerW')::float8 AS power_w, (r.result->>'stable')::boolean AS stable,
+  u.name AS author_name, m.name AS machine_name, c.name AS cutter_name, mat.name AS material_name,
+  (SELECT count(*) FROM cut_logs cl WHERE cl.recipe_id = r.id) AS cut_log_count`;
+
+function toListItem(r: Row): RecipeListItem {
+  return recipeListItemSchema.parse({
+    id: r.id,
+    shopId: r.shop_id,
+    name: r.name,
+    assemblyId: r.assembly_id,
+    machineId: r.machine_id,
+    cutterId: r.cutter_id,
+    materialId: r.material_id,
+    operation: r.operation,
+    status: r.status,
+    revision: r.revision,
+    result: {
+      rpm: r.rpm,
+      feedMmPerMin: r.feed_mm_per_min,
+      chipLoadMm: r.chip_load_mm,
+      materialRemovalRateMm3PerMin: r.removal_rate_mm3_per_min,
+      powerW: r.power_w,
+      stable: r.stable,
+    },
     notes: r.notes,
     needsRecheck: r.needs_recheck,
     authorId: r.author_id,
@@ -162,7 +209,7 @@ export function recipeListSql(shopId: string, query: RecipeListQuery, approvedOn
   const dir = query.order === "asc" ? "ASC" : "DESC";
   const replacements = { ...where.replacements, limit: query.pageSize, offset: (query.page - 1) * query.pageSize };
   const count = `SELECT count(*) AS total FROM recipes r WHERE ${where.sql}`;
-  const page = `SELECT ${RECIPE_COLUMNS}, (${count}) AS list_total
+  const page = `SELECT ${LIST_COLUMNS}, (${count}) AS list_total
     FROM (SELECT r.id, ${sort.key} AS sort_key FROM recipes r ${sort.join}
            WHERE ${where.sql} ORDER BY ${sort.key} ${dir}, r.id ${dir} LIMIT :limit OFFSET :offset) AS page
     JOIN recipes r ON r.id = page.id ${RECIPE_JOINS}
@@ -170,11 +217,11 @@ export function recipeListSql(shopId: string, query: RecipeListQuery, approvedOn
   return { page, count, replacements };
 }
 
-export async function listRecipes(shopId: string, query: RecipeListQuery, approvedOnly: boolean): Promise<{ items: Recipe[]; total: number }> {
+export async function listRecipes(shopId: string, query: RecipeListQuery, approvedOnly: boolean): Promise<{ items: RecipeListItem[]; total: number }> {
   const sql = recipeListSql(shopId, query, approvedOnly);
   const rows = await preparedSelect(sql.page, sql.replacements);
   const total = rows.length ? rows[0]!.list_total : (await preparedSelect<{ total: number }>(sql.count, sql.replacements))[0]?.total;
-  return { items: rows.map(toRecipe), total: Number(total ?? 0) };
+  return { items: rows.map(toListItem), total: Number(total ?? 0) };
 }
 
 /** The fields a recipe row and a revision row share. */

@@ -4,7 +4,7 @@ import {
   recipeSortFields,
   recipeStatuses,
   recipeStatusSchema,
-  type Recipe,
+  type RecipeListItem,
   type Role,
   type UnitSystem,
 } from "@ringdown/contracts";
@@ -136,7 +136,7 @@ export function RecipesPage({ shopId, role, system, options }: { shopId: string;
       onError: (error) => setNotice({ tone: "limit", text: `${recipe.name} could not be restored: ${error.message}` }),
     });
 
-  const columns = useMemo<Array<ColumnDef<Recipe, unknown>>>(
+  const columns = useMemo<Array<ColumnDef<RecipeListItem, unknown>>>(
     () => [
       {
         id: "name",
