@@ -52,6 +52,7 @@ export const routes: RouteObject[] = [
           { path: "team", lazy: page(() => import("./routes/app/team"), (m) => m.TeamRoute) },
           { path: "team/history", lazy: page(() => import("./routes/app/team-history"), (m) => m.TeamHistoryRoute) },
           { path: "billing", lazy: page(() => import("./routes/app/billing"), (m) => m.BillingRoute) },
+          { path: "shop-data", lazy: page(() => import("./routes/app/shop-data"), (m) => m.ShopDataRoute) },
           { path: "*", lazy: page(() => import("./routes/not-found"), (m) => m.NotFoundRoute) },
         ],
       },

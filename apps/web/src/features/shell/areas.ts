@@ -1,7 +1,9 @@
+import type { Role } from "@ringdown/contracts";
 import {
   Boxes,
   ClipboardList,
   CreditCard,
+  DatabaseArrowDown,
   Drill,
   Factory,
   Gauge,
@@ -9,7 +11,7 @@ import {
   type LucideIcon,
 } from "lucide-react";
 
-export type AreaKey = "planner" | "recipes" | "cutters" | "materials" | "machines" | "team" | "billing";
+export type AreaKey = "planner" | "recipes" | "cutters" | "materials" | "machines" | "team" | "billing" | "shop-data";
 
 export interface Area {
   key: AreaKey;
@@ -20,6 +22,8 @@ export interface Area {
   purpose: string;
   /** What will be here once the area is built. */
   comingUp: string;
+  /** Only these roles see the area in the rail (all do when absent). */
+  roles?: readonly Role[];
 }
 
 /** The main areas, in rail order. */
@@ -85,6 +89,15 @@ export const areas: readonly Area[] = [
     icon: CreditCard,
     purpose: "Seats and payment for this shop.",
     comingUp: "The shop's owner will manage the subscription, the number of seats and the invoices here.",
+  },
+  {
+    key: "shop-data",
+    path: "/shop-data",
+    label: "Shop data",
+    icon: DatabaseArrowDown,
+    purpose: "Download what this shop keeps in Ringdown.",
+    comingUp: "Owners and tooling managers will download the shop's cutters, recipes and cut logs here, as JSON or CSV.",
+    roles: ["owner", "tooling_manager"],
   },
 ];
 

@@ -72,7 +72,7 @@ export function AppShell({ me, children }: { me: Me; children: ReactNode }) {
         <ShopSwitcher me={me} />
         <nav aria-label="Main areas" className="flex-1">
           <ul className="flex flex-col gap-0.5">
-            {areas.map((area) => (
+            {areas.filter((area) => !area.roles || (active !== undefined && area.roles.includes(active.role))).map((area) => (
               <li key={area.key}>
                 <NavLink
                   to={area.path}
