@@ -5,6 +5,8 @@
  */
 import autocannon from "autocannon";
 import { spawn, type ChildProcess } from "node:child_process";
+import http from "node:http";
+import { setTimeout as sleep } from "node:timers/promises";
 import { once } from "node:events";
 import { cpus, loadavg, tmpdir } from "node:os";
 import path from "node:path";
@@ -161,7 +163,6 @@ export async function runLoad(
   connections: number,
   seconds: number,
   plan: () => PlannedRequest,
-  options: { overallRate?: number } = {},
 ): Promise<LoadResult> {
   const all = newStats("all");
   const byKind = new Map<string, KindStats>();
@@ -174,9 +175,7 @@ export async function runLoad(
         connections,
         duration: seconds,
         timeout: 30,
-        // Paced (open) load when given: requests per second over all connections; otherwise each
-        // connection sends its next request as soon as the last one is answered (saturation).
-        ...(options.overallRate ? { overallRate: options.overallRate } : {}),
+        // Each connection sends its next request as soon as the last one is answered (saturation).
         requests: [
           {
             setupRequest: (req, context) => {
@@ -275,3 +274,71 @@ export function printLoad(title: string, result: LoadResult): void {
 }
 
 export const pick = <T>(random: () => number, items: readonly T[]): T => items[Math.floor(random() * items.length)]!;
+
+/**
+ * Open (paced) load: requests start at evenly spaced moments, `rate` a second, over at most
+ * `connections` keep-alive connections, however long the answers take. Latency counts from the
+ * moment a request was due, so a request that waited for a free connection counts its wait too.
+ * (autocannon's own `overallRate` lets every connection send its share at the start of each second,
+ * which turns pacing into bursts of `rate` requests at once.)
+ */
+export async function runPaced(baseUrl: string, connections: number, seconds: number, rate: number, plan: () => PlannedRequest): Promise<LoadResult> {
+  const agent = new http.Agent({ keepAlive: true, maxSockets: connections });
+  const url = new URL(baseUrl);
+  const all = newStats("all");
+  const byKind = new Map<string, KindStats>();
+  let errors = 0;
+  let timeouts = 0;
+  const send = (next: PlannedRequest): Promise<number> =>
+    new Promise((resolve, reject) => {
+      const body = next.body === undefined ? undefined : JSON.stringify(next.body);
+      const headers: Record<string, string> = { ...next.headers, ...(body ? { "content-type": "application/json" } : {}) };
+      const req = http.request({ host: url.hostname, port: url.port, method: next.method, path: next.path, headers, agent, timeout: 30_000 }, (res) => {
+        res.resume();
+        res.once("end", () => resolve(res.statusCode ?? 0));
+        res.once("error", reject);
+      });
+      req.once("timeout", () => {
+        timeouts++;
+        req.destroy(new Error("timeout"));
+      });
+      req.once("error", reject);
+      req.end(body);
+    });
+  const total = Math.round(seconds * rate);
+  const start = performance.now();
+  const inFlight: Array<Promise<void>> = [];
+  for (let i = 0; i < total; i++) {
+    const due = start + (i * 1000) / rate;
+    const wait = due - performance.now();
+    if (wait > 0) await sleep(wait);
+    const next = plan();
+    inFlight.push(
+      send(next).then(
+        (status) => {
+          let stats = byKind.get(next.kind);
+          if (!stats) byKind.set(next.kind, (stats = newStats(next.kind)));
+          for (const s of [all, stats]) {
+            s.count++;
+            s.statuses.set(status, (s.statuses.get(status) ?? 0) + 1);
+            s.latencies.push(performance.now() - due);
+          }
+        },
+        () => {
+          errors++;
+        },
+      ),
+    );
+  }
+  await Promise.all(inFlight);
+  agent.destroy();
+  return {
+    seconds,
+    requests: all.count,
+    requestsPerSecond: all.count / seconds,
+    errors: Math.max(0, errors - timeouts),
+    timeouts,
+    all,
+    kinds: [...byKind.values()].sort((a, b) => b.count - a.count),
+  };
+}
