@@ -41,8 +41,9 @@ const RECIPE_JOINS = `
   JOIN cutters c ON c.id = r.cutter_id
   JOIN materials mat ON mat.id = r.material_id`;
 
-function toRecipe(r: Row): Recipe {
-  return recipeSchema.parse({
+/** The fields a full recipe and a list row share, from a row of RECIPE_COLUMNS or LIST_COLUMNS. */
+function commonFields(r: Row) {
+  return {
     id: r.id,
     shopId: r.shop_id,
     name: r.name,
@@ -53,8 +54,6 @@ function toRecipe(r: Row): Recipe {
     operation: r.operation,
     status: r.status,
     revision: r.revision,
-    params: storedParams(r.params),
-    result: r.result,
     notes: r.notes,
     needsRecheck: r.needs_recheck,
     authorId: r.author_id,
@@ -67,7 +66,11 @@ function toRecipe(r: Row): Recipe {
     updatedAt: iso(r.updated_at),
     deletedAt: r.deleted_at ? iso(r.deleted_at) : null,
     cutLogCount: Number(r.cut_log_count ?? 0),
-  });
+  };
+}
+
+function toRecipe(r: Row): Recipe {
+  return recipeSchema.parse({ ...commonFields(r), params: storedParams(r.params), result: r.result });
 }
 
 /** What a row of the list needs (recipeListItemSchema): the headline numbers out of the stored result. */
@@ -82,16 +85,7 @@ const LIST_COLUMNS = `
 
 function toListItem(r: Row): RecipeListItem {
   return recipeListItemSchema.parse({
-    id: r.id,
-    shopId: r.shop_id,
-    name: r.name,
-    assemblyId: r.assembly_id,
-    machineId: r.machine_id,
-    cutterId: r.cutter_id,
-    materialId: r.material_id,
-    operation: r.operation,
-    status: r.status,
-    revision: r.revision,
+    ...commonFields(r),
     result: {
       rpm: r.rpm,
       feedMmPerMin: r.feed_mm_per_min,
@@ -100,18 +94,6 @@ function toListItem(r: Row): RecipeListItem {
       powerW: r.power_w,
       stable: r.stable,
     },
-    notes: r.notes,
-    needsRecheck: r.needs_recheck,
-    authorId: r.author_id,
-    authorName: r.author_name,
-    machineName: r.machine_name,
-    cutterName: r.cutter_name,
-    materialName: r.material_name,
-    lastComment: r.last_comment,
-    createdAt: iso(r.created_at),
-    updatedAt: iso(r.updated_at),
-    deletedAt: r.deleted_at ? iso(r.deleted_at) : null,
-    cutLogCount: Number(r.cut_log_count ?? 0),
   });
 }
 
