@@ -66,7 +66,8 @@ function RecipeForShop({ shop, recipeId }: { shop: ActiveShop; recipeId: string 
       system={system}
       recipe={r}
       cleanCutsOnMachine={clean}
-      copyTargets={assemblies.data?.items ?? []}
+      copyTargets={assemblies.data?.items}
+      copyTargetsError={assemblies.isError ? assemblies.error.message : null}
       cutLog={<RecipeCutLogs shopId={shop.shopId} recipeId={r.id} system={system} />}
     />
   );

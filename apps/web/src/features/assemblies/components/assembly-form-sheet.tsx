@@ -8,6 +8,7 @@ import { Form, FormError } from "@/components/ui/form";
 import { NumberField } from "@/components/ui/number-field";
 import { SelectField } from "@/components/ui/select";
 import { Sheet } from "@/components/ui/sheet";
+import { LoadingState } from "@/components/ui/spinner";
 import { TextareaField } from "@/components/ui/textarea";
 import { formatMeasure, measures } from "@/components/ui/units";
 import { useUnitSystem } from "@/lib/auth";
@@ -40,6 +41,9 @@ export function AssemblyFormSheet({
   open,
   assembly,
   cutters,
+  cuttersLoading = false,
+  cuttersError = null,
+  onRetryCutters,
   onClose,
   onSaved,
 }: {
@@ -50,6 +54,12 @@ export function AssemblyFormSheet({
   /** null: a new assembly. */
   assembly: Assembly | null;
   cutters: Cutter[];
+  /** The shop's cutters are still being fetched. */
+  cuttersLoading?: boolean;
+  /** Why the shop's cutters could not be fetched. */
+  cuttersError?: string | null;
+  /** Fetches the cutters again after a failure. */
+  onRetryCutters?: () => void;
   onClose: () => void;
   onSaved: (saved: Assembly, created: boolean) => void;
 }) {
@@ -101,7 +111,18 @@ export function AssemblyFormSheet({
         {() => (
           <>
             <FormError />
-            {choices.length === 0 ? (
+            {cuttersLoading ? (
+              <LoadingState label="Loading the shop's cutters…" />
+            ) : cuttersError ? (
+              <div role="alert" className="flex flex-wrap items-center justify-between gap-2 rounded-md border border-limit/40 bg-limit/5 px-3 py-2 text-sm text-limit">
+                <span>Cannot load the shop's cutters: {cuttersError}</span>
+                {onRetryCutters && (
+                  <Button variant="secondary" size="sm" onClick={onRetryCutters}>
+                    Try again
+                  </Button>
+                )}
+              </div>
+            ) : choices.length === 0 ? (
               <p className="rounded-md border border-dashed border-rule px-3 py-4 text-sm text-muted">
                 The shop has no approved or proposed cutters yet. Add one on the Cutters page first.
               </p>

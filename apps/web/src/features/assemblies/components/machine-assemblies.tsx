@@ -178,6 +178,9 @@ export function MachineAssemblies({ machineId, machineName }: { machineId: strin
         open={editing !== null}
         assembly={editing === "new" ? null : editing}
         cutters={cutterList}
+        cuttersLoading={cutters.isPending}
+        cuttersError={cutters.isError ? cutters.error.message : null}
+        onRetryCutters={() => void cutters.refetch()}
         onClose={() => setEditing(null)}
         onSaved={(saved, created) => {
           setEditing(null);

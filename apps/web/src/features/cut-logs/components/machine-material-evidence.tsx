@@ -1,6 +1,6 @@
 import type { UnitSystem } from "@ringdown/contracts";
 import { Card } from "@/components/ui/card";
-import { Spinner } from "@/components/ui/spinner";
+import { LoadingState, Spinner } from "@/components/ui/spinner";
 import { useCutLogs } from "../api/get-cut-logs";
 import { LoggedOutcomes } from "./logged-outcomes";
 
@@ -27,7 +27,7 @@ export function MachineMaterialEvidence({
           {logs.isFetching && <Spinner className="size-3.5" label="Refreshing" />}
         </h2>
         {logs.isPending ? (
-          <p className="text-sm text-muted">Loading the shop's cut log…</p>
+          <LoadingState label="Loading the shop's cut log…" />
         ) : logs.isError ? (
           <p role="alert" className="text-sm text-limit">
             Cannot load the cut log: {logs.error.message}

@@ -1,5 +1,6 @@
 import type { UnitSystem } from "@ringdown/contracts";
 import { MeasureValue } from "@/components/ui/measure";
+import { LoadingState } from "@/components/ui/spinner";
 import { measures } from "@/components/ui/units";
 import { formatNumber } from "@/lib/format";
 import { useRecipeCutLogs } from "../api/get-recipe-cut-logs";
@@ -10,7 +11,7 @@ const when = new Intl.DateTimeFormat("en-GB", { day: "numeric", month: "short", 
 /** The cuts logged against one recipe: outcome, actual numbers, note and photos. */
 export function RecipeCutLogs({ shopId, recipeId, system }: { shopId: string; recipeId: string; system: UnitSystem }) {
   const logs = useRecipeCutLogs(shopId, recipeId);
-  if (logs.isPending) return <p className="text-sm text-muted">Loading the cut log…</p>;
+  if (logs.isPending) return <LoadingState label="Loading the cut log…" />;
   if (logs.isError)
     return (
       <p role="alert" className="text-sm text-limit">

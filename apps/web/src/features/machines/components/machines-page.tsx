@@ -188,7 +188,9 @@ export function MachinesPage() {
         initialSorting={[{ id: "name", desc: false }]}
         empty={
           deleted ? (
-            <EmptyState icon={Factory} title="No deleted machines" />
+            <EmptyState icon={Factory} title="No deleted machines">
+              <p>Deleted machines wait here until they are restored.</p>
+            </EmptyState>
           ) : (
             <EmptyState
               icon={Factory}

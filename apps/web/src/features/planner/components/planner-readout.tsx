@@ -41,7 +41,7 @@ export function PlannerReadout({
     if (cutterError) placeholder = <p className="text-sm text-limit">Cannot load the cutter of this assembly: {cutterError}</p>;
     else if (loading)
       placeholder = (
-        <p className="flex items-center gap-2 text-sm text-muted">
+        <p role="status" className="flex items-center gap-2 text-sm text-muted">
           <Spinner /> Loading the cutter…
         </p>
       );

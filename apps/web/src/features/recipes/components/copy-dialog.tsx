@@ -6,6 +6,7 @@ import { Dialog } from "@/components/ui/dialog";
 import { TextField } from "@/components/ui/field";
 import { Form, FormError } from "@/components/ui/form";
 import { SelectField } from "@/components/ui/select";
+import { LoadingState } from "@/components/ui/spinner";
 import { useCopyRecipe } from "../api/copy-recipe";
 
 const schema = z.object({
@@ -17,10 +18,24 @@ const schema = z.object({
  * Copies the recipe onto another cutter assembly, usually on another machine: the server
  * recomputes it against that machine's limits and it starts there as an unproven draft.
  */
-export function CopyDialog({ shopId, recipe, targets, onClose }: { shopId: string; recipe: Recipe; targets: Assembly[]; onClose: () => void }) {
+export function CopyDialog({
+  shopId,
+  recipe,
+  targets,
+  targetsError = null,
+  onClose,
+}: {
+  shopId: string;
+  recipe: Recipe;
+  /** The shop's assemblies; undefined while they are still being fetched. */
+  targets: Assembly[] | undefined;
+  /** Why the assemblies could not be fetched. */
+  targetsError?: string | null;
+  onClose: () => void;
+}) {
   const copy = useCopyRecipe(shopId, recipe.id);
   const navigate = useNavigate();
-  const options = targets
+  const options = (targets ?? [])
     .filter((a) => a.id !== recipe.assemblyId)
     .map((a) => ({
       value: a.id,
@@ -34,9 +49,17 @@ export function CopyDialog({ shopId, recipe, targets, onClose }: { shopId: strin
       title="Copy to another machine"
       description="The copy is recomputed against the chosen machine's limits and starts as a draft: it is not proven there yet."
     >
-      {options.length === 0 ? (
+      {targetsError || targets === undefined || options.length === 0 ? (
         <div className="flex flex-col gap-4 text-sm">
-          <p>There is no other cutter assembly to copy onto. Add one under Machines first.</p>
+          {targetsError ? (
+            <p role="alert" className="text-limit">
+              Cannot load the cutter assemblies to copy onto: {targetsError}
+            </p>
+          ) : targets === undefined ? (
+            <LoadingState label="Loading the cutter assemblies…" />
+          ) : (
+            <p>There is no other cutter assembly to copy onto. Add one under Machines first.</p>
+          )}
           <div className="flex justify-end">
             <Button variant="secondary" onClick={onClose}>
               Close

@@ -6,6 +6,7 @@ import { Button } from "@/components/ui/button";
 import { Dialog } from "@/components/ui/dialog";
 import { Form, FormError } from "@/components/ui/form";
 import { MeasureValue } from "@/components/ui/measure";
+import { LoadingState } from "@/components/ui/spinner";
 import { TextareaField } from "@/components/ui/textarea";
 import { measures } from "@/components/ui/units";
 import { useRestoreRevision } from "../api/restore-revision";
@@ -21,7 +22,7 @@ export function RevisionHistory({ shopId, recipe, system, canRestore }: { shopId
   const revisions = useRevisions(shopId, recipe.id);
   const [restoring, setRestoring] = useState<RecipeRevision | null>(null);
 
-  if (revisions.isPending) return <p className="text-sm text-muted">Loading the revisions…</p>;
+  if (revisions.isPending) return <LoadingState label="Loading the revisions…" />;
   if (revisions.isError)
     return (
       <p role="alert" className="text-sm text-limit">
@@ -113,7 +114,7 @@ function RestoreDialog({ shopId, recipe, revision, onClose }: { shopId: string; 
 /** The recipe's status changes, newest first, with who made them and their comments. */
 export function TransitionHistory({ shopId, recipeId }: { shopId: string; recipeId: string }) {
   const transitions = useTransitions(shopId, recipeId);
-  if (transitions.isPending) return <p className="text-sm text-muted">Loading the status history…</p>;
+  if (transitions.isPending) return <LoadingState label="Loading the status history…" />;
   if (transitions.isError)
     return (
       <p role="alert" className="text-sm text-limit">

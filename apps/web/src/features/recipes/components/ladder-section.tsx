@@ -11,6 +11,7 @@ import { Form, FormError } from "@/components/ui/form";
 import { MeasureValue } from "@/components/ui/measure";
 import { NumberField } from "@/components/ui/number-field";
 import { SelectField } from "@/components/ui/select";
+import { LoadingState } from "@/components/ui/spinner";
 import { TextareaField } from "@/components/ui/textarea";
 import { measures } from "@/components/ui/units";
 import { useLadder } from "../api/get-ladder";
@@ -56,7 +57,7 @@ export function LadderSection({
   const ladder = useLadder(shopId, recipe.id);
   const [rebuilding, setRebuilding] = useState(false);
 
-  if (ladder.isPending) return <p className="text-sm text-muted">Loading the test-cut ladder…</p>;
+  if (ladder.isPending) return <LoadingState label="Loading the test-cut ladder…" />;
   if (ladder.isError)
     return (
       <p role="alert" className="text-sm text-limit">

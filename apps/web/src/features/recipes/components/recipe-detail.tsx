@@ -11,7 +11,7 @@ import { Button } from "@/components/ui/button";
 import { Card } from "@/components/ui/card";
 import { ConfirmDialog } from "@/components/ui/confirm-dialog";
 import { Notice, PageHeader } from "@/components/ui/page-header";
-import { Spinner } from "@/components/ui/spinner";
+import { LoadingState, Spinner } from "@/components/ui/spinner";
 import { cn } from "@/lib/cn";
 import { useDeleteRecipe } from "../api/delete-recipe";
 import { useRecommendation } from "../api/get-recommendation";
@@ -85,6 +85,7 @@ export function RecipeDetail({
   recipe,
   cleanCutsOnMachine,
   copyTargets,
+  copyTargetsError = null,
   cutLog,
 }: {
   shopId: string;
@@ -93,8 +94,10 @@ export function RecipeDetail({
   recipe: Recipe;
   /** Clean cuts of this recipe logged on its machine (what "Mark proven" needs). */
   cleanCutsOnMachine: number;
-  /** Assemblies the recipe can be copied onto. */
-  copyTargets: Assembly[];
+  /** Assemblies the recipe can be copied onto; undefined while they load. */
+  copyTargets: Assembly[] | undefined;
+  /** Why those assemblies could not be loaded. */
+  copyTargetsError?: string | null;
   /** The recipe's cut log (composed by the route). */
   cutLog: ReactNode;
 }) {
@@ -255,7 +258,7 @@ export function RecipeDetail({
             actions={server.isFetching ? <Spinner label="Computing" /> : undefined}
           >
             {server.isPending ? (
-              <p className="text-sm text-muted">Computing the limits…</p>
+              <LoadingState label="Computing the limits…" />
             ) : server.isError ? (
               <p role="alert" className="text-sm text-limit">
                 Cannot compute the limits: {server.error.message}
@@ -321,7 +324,7 @@ export function RecipeDetail({
         />
       )}
       {editing && <EditRecipeSheet shopId={shopId} recipe={recipe} onClose={() => setEditing(false)} />}
-      {copying && <CopyDialog shopId={shopId} recipe={recipe} targets={copyTargets} onClose={() => setCopying(false)} />}
+      {copying && <CopyDialog shopId={shopId} recipe={recipe} targets={copyTargets} targetsError={copyTargetsError} onClose={() => setCopying(false)} />}
       {deleting && (
         <ConfirmDialog
           open

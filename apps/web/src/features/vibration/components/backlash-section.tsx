@@ -116,7 +116,17 @@ export function BacklashSection({
               : undefined
           }
           empty={
-            <EmptyState icon={MoveHorizontal} title="No backlash readings yet">
+            <EmptyState
+              icon={MoveHorizontal}
+              title="No backlash readings yet"
+              action={
+                mayEdit && (
+                  <Button onClick={() => setAdding(true)}>
+                    <Plus className="size-4" aria-hidden /> Add the first reading
+                  </Button>
+                )
+              }
+            >
               <p>Backlash decides whether climb milling is safe on this machine: a loose axis lets the cutter pull the table into the cut.</p>
             </EmptyState>
           }

@@ -146,9 +146,11 @@ export function RecordingsSection({ shopId, machine, mayDelete }: { shopId: stri
             </EmptyState>
           }
         />
-        <p className="mt-2 text-xs text-muted">
-          {formatNumber(list.data?.items.filter((r) => r.status === "done").length ?? 0)} analysed. Open a recording to see its spectrum and what it suggests.
-        </p>
+        {list.data && list.data.items.length > 0 && (
+          <p className="mt-2 text-xs text-muted">
+            {formatNumber(list.data.items.filter((r) => r.status === "done").length)} analysed. Open a recording to see its spectrum and what it suggests.
+          </p>
+        )}
       </CardBody>
 
       {adding && (
