@@ -17,6 +17,7 @@ cd "$RINGDOWN_ROOT"
 
 check_node
 ensure_dependencies
+ensure_chromium "the chart benchmark"
 
 STARTED_TEST_CLUSTER=0
 BENCH_DB=ringdown_bench

@@ -15,7 +15,7 @@ cd "$RINGDOWN_ROOT"
 load_dotenv
 check_node
 ensure_dependencies
-[[ -x "${RINGDOWN_CHROMIUM:-/usr/bin/chromium}" ]] || die "Chromium not found at ${RINGDOWN_CHROMIUM:-/usr/bin/chromium}; install Debian's chromium (apt-get install chromium) or set RINGDOWN_CHROMIUM."
+ensure_chromium "the screenshots"
 
 url="${1:-${SCREENSHOTS_URL:-}}"
 PIDS=()

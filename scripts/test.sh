@@ -14,17 +14,7 @@ set -e
 check_node
 ensure_dependencies
 
-CHROMIUM="${RINGDOWN_CHROMIUM:-/usr/bin/chromium}"
-if [[ ! -x "$CHROMIUM" ]]; then
-  if [[ "$(id -u)" == 0 ]] && command -v apt-get >/dev/null 2>&1; then
-    log "Installing Debian's chromium for the end-to-end tests"
-    DEBIAN_FRONTEND=noninteractive apt-get update -qq
-    DEBIAN_FRONTEND=noninteractive apt-get install -y -qq chromium >/dev/null
-  else
-    die "Chromium is needed for the end-to-end tests and is not at $CHROMIUM. Install it with: sudo apt-get install -y chromium"
-  fi
-fi
-export RINGDOWN_CHROMIUM="$CHROMIUM"
+ensure_chromium "the end-to-end tests"
 
 # --- the test database ----------------------------------------------------------------------
 STARTED_TEST_CLUSTER=0

@@ -52,6 +52,22 @@ ensure_dependencies() {
   fi
 }
 
+# Makes sure Debian's Chromium is at $RINGDOWN_CHROMIUM (default /usr/bin/chromium), installing
+# it with apt-get when running as root, and exports RINGDOWN_CHROMIUM. $1 says what needs it.
+ensure_chromium() {
+  local purpose="$1" chromium="${RINGDOWN_CHROMIUM:-/usr/bin/chromium}"
+  if [[ ! -x "$chromium" ]]; then
+    if [[ "$(id -u)" == 0 ]] && command -v apt-get >/dev/null 2>&1; then
+      log "Installing Debian's chromium for $purpose"
+      DEBIAN_FRONTEND=noninteractive apt-get update -qq
+      DEBIAN_FRONTEND=noninteractive apt-get install -y -qq chromium >/dev/null
+    else
+      die "Chromium is needed for $purpose and is not at $chromium. Install it with: sudo apt-get install -y chromium (or set RINGDOWN_CHROMIUM)"
+    fi
+  fi
+  export RINGDOWN_CHROMIUM="$chromium"
+}
+
 # Fails with one clear line when something already listens on the TCP port.
 ensure_port_free() {
   local port="$1" status=0
