@@ -47,12 +47,14 @@ test("a tooling manager opens the shop's data from the rail and downloads the re
   expect(text.trim().split("\r\n").length).toBeGreaterThan(1);
 });
 
-test("an operator has no rail entry for the shop's data and is told who can download it", async ({ page }) => {
+test("an operator has no rail entry for the shop's data or billing and is told who can download the data", async ({ page }) => {
   await page.goto("/sign-in");
   await signIn(page, operator.email, operator.password);
   const nav = page.getByRole("navigation", { name: "Main areas" });
   await expect(nav.getByRole("link", { name: "Recipes" })).toBeVisible();
   await expect(nav.getByRole("link", { name: "Shop data" })).toHaveCount(0);
+  // Billing is the owners' alone, so it is not offered either.
+  await expect(nav.getByRole("link", { name: "Billing" })).toHaveCount(0);
 
   await page.goto("/shop-data");
   await expect(page.getByRole("heading", { level: 2, name: "Only owners and tooling managers can download the shop's data" })).toBeVisible();

@@ -89,6 +89,7 @@ export const areas: readonly Area[] = [
     icon: CreditCard,
     purpose: "Seats and payment for this shop.",
     comingUp: "The shop's owner will manage the subscription, the number of seats and the invoices here.",
+    roles: ["owner"],
   },
   {
     key: "shop-data",
