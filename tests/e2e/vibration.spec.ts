@@ -127,7 +127,7 @@ test("a new shop measures its machine: stiffness readings with refused values, t
   await expect(page.getByText("No stiffness readings yet")).toBeVisible();
 
   // A reading whose dial did not move is refused with the reason.
-  await page.getByRole("button", { name: "Add the first reading" }).click();
+  await page.getByRole("button", { name: "Add the first stiffness reading" }).click();
   const sheet = page.getByRole("dialog", { name: "Add a stiffness reading" });
   await sheet.getByLabel("Direction of the push").selectOption("y");
   await sheet.getByLabel("Force").fill("40");

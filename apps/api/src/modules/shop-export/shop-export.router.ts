@@ -28,7 +28,7 @@ export function registerShopExportRoutes(router: Router): void {
     inputOf(res, jsonInput);
     const { shop } = currentShop(res);
     const body = await exportShopJson(shop);
-    await recordShopExport(shop, requestActor(res), "json");
+    await recordShopExport(shop, requestActor(res), { file: "json" });
     res.setHeader("Content-Disposition", `attachment; filename="ringdown-${slug(shop.name)}-${today()}.json"`);
     res.json(body);
   });
@@ -40,7 +40,7 @@ export function registerShopExportRoutes(router: Router): void {
     if (!entity.success) throw AppError.notFound("No such export. Use cutters.csv, assemblies.csv, recipes.csv or cut-logs.csv.");
     const { shop } = currentShop(res);
     const text = await exportShopCsv(shop.id, entity.data, units);
-    await recordShopExport(shop, requestActor(res), entity.data);
+    await recordShopExport(shop, requestActor(res), { file: entity.data, units });
     const unitsSuffix = units === "imperial" ? "-inch" : "";
     res.setHeader("Content-Type", "text/csv; charset=utf-8");
     res.setHeader("Content-Disposition", `attachment; filename="ringdown-${slug(shop.name)}-${entity.data}-${today()}${unitsSuffix}.csv"`);

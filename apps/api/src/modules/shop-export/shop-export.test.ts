@@ -1,6 +1,6 @@
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { parse } from "csv-parse/sync";
-import { apiErrorSchema, recipeSchema, shopExportSchema, type Recipe } from "@ringdown/contracts";
+import { apiErrorSchema, auditEventPageSchema, recipeSchema, shopExportSchema, type Recipe } from "@ringdown/contracts";
 import { createPerson, disconnectTestDatabase, joinShop, makeTestApp, type SignedUp } from "../../test/harness.js";
 import { libraryFor } from "../recipes/recipe-test-fixtures.js";
 
@@ -126,6 +126,19 @@ describe("GET export/<entity>.csv", () => {
     expect((await people.owner.agent.get(url("/export/passwords.csv"))).status).toBe(404);
     expect((await people.owner.agent.get(url("/export/recipes.xlsx"))).status).toBe(404);
     expect((await people.programmer.agent.get(url("/export/recipes.csv"))).status).toBe(403);
+  });
+
+  it("records in the change history who downloaded which file, and in which units", async () => {
+    await people.tooling_manager.agent.get(url("/export/cut-logs.csv?units=imperial")).buffer(true).expect(200);
+    await people.tooling_manager.agent.get(url("/export?format=json")).expect(200);
+    const events = auditEventPageSchema.parse(
+      (await people.owner.agent.get(url("/audit-events")).query({ action: "shop.exported", pageSize: 2 }).expect(200)).body,
+    ).items;
+    // Newest first: the JSON (always SI, so no units), then the imperial cut log.
+    expect(events.map((e) => [e.actorId, e.detail])).toEqual([
+      [people.tooling_manager.userId, { file: "json" }],
+      [people.tooling_manager.userId, { file: "cut-logs", units: "imperial" }],
+    ]);
   });
 });
 

@@ -122,7 +122,7 @@ export function BacklashSection({
               action={
                 mayEdit && (
                   <Button onClick={() => setAdding(true)}>
-                    <Plus className="size-4" aria-hidden /> Add the first reading
+                    <Plus className="size-4" aria-hidden /> Add the first backlash reading
                   </Button>
                 )
               }

@@ -138,7 +138,7 @@ export function StiffnessSection({
                 action={
                   mayEdit && (
                     <Button onClick={() => setAdding(true)}>
-                      <Plus className="size-4" aria-hidden /> Add the first reading
+                      <Plus className="size-4" aria-hidden /> Add the first stiffness reading
                     </Button>
                   )
                 }
