@@ -20,16 +20,16 @@ import { inTransaction } from "../../db/sequelize.js";
 import { recordAuditEvent, type AuditActor } from "../audit/audit.service.js";
 
 /**
- * Records in the audit log that `actor` took the shop's data out: `file` is "json" (always SI) or
- * an entity's CSV, written in `units`. Called once the export is built, before it is sent.
+ * Records in the audit log that `actor` took the shop's data out, naming the file ("json", always
+ * SI, or an entity's CSV) and the CSV's units. Called once the export is built, before it is sent.
  */
 export async function recordShopExport(
   shop: { id: string; name: string },
   actor: AuditActor,
-  file: { file: "json" } | { file: ShopExportEntity; units: UnitSystem },
+  download: { file: "json" } | { file: ShopExportEntity; units: UnitSystem },
 ): Promise<void> {
   await inTransaction((tx) =>
-    recordAuditEvent(tx, { shopId: shop.id, actor, action: "shop.exported", subject: { type: "shop", id: shop.id, label: shop.name }, detail: { ...file } }),
+    recordAuditEvent(tx, { shopId: shop.id, actor, action: "shop.exported", subject: { type: "shop", id: shop.id, label: shop.name }, detail: download }),
   );
 }
 

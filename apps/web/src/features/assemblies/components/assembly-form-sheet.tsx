@@ -11,6 +11,7 @@ import { Sheet } from "@/components/ui/sheet";
 import { LoadingState } from "@/components/ui/spinner";
 import { TextareaField } from "@/components/ui/textarea";
 import { formatMeasure, measures } from "@/components/ui/units";
+import { LoadError } from "@/components/ui/load-error";
 import { useUnitSystem } from "@/lib/auth";
 import { useCreateAssembly } from "../api/create-assembly";
 import { useUpdateAssembly } from "../api/update-assembly";
@@ -114,14 +115,7 @@ export function AssemblyFormSheet({
             {cuttersLoading ? (
               <LoadingState label="Loading the shop's cutters…" />
             ) : cuttersError ? (
-              <div role="alert" className="flex flex-wrap items-center justify-between gap-2 rounded-md border border-limit/40 bg-limit/5 px-3 py-2 text-sm text-limit">
-                <span>Cannot load the shop's cutters: {cuttersError}</span>
-                {onRetryCutters && (
-                  <Button variant="secondary" size="sm" onClick={onRetryCutters}>
-                    Try again
-                  </Button>
-                )}
-              </div>
+              <LoadError {...(onRetryCutters ? { onRetry: onRetryCutters } : {})}>Cannot load the shop's cutters: {cuttersError}</LoadError>
             ) : choices.length === 0 ? (
               <p className="rounded-md border border-dashed border-rule px-3 py-4 text-sm text-muted">
                 The shop has no approved or proposed cutters yet. Add one on the Cutters page first.

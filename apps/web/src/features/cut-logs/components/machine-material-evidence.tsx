@@ -1,6 +1,7 @@
 import type { UnitSystem } from "@ringdown/contracts";
 import { Card } from "@/components/ui/card";
 import { LoadingState, Spinner } from "@/components/ui/spinner";
+import { LoadError } from "@/components/ui/load-error";
 import { useCutLogs } from "../api/get-cut-logs";
 import { LoggedOutcomes } from "./logged-outcomes";
 
@@ -29,9 +30,7 @@ export function MachineMaterialEvidence({
         {logs.isPending ? (
           <LoadingState label="Loading the shop's cut log…" />
         ) : logs.isError ? (
-          <p role="alert" className="text-sm text-limit">
-            Cannot load the cut log: {logs.error.message}
-          </p>
+          <LoadError onRetry={() => void logs.refetch()}>Cannot load the cut log: {logs.error.message}</LoadError>
         ) : (
           <LoggedOutcomes logs={logs.data.items} total={logs.data.total} system={system} {...(predicted ? { predicted } : {})} />
         )}

@@ -2,6 +2,7 @@ import type { UnitSystem } from "@ringdown/contracts";
 import { MeasureValue } from "@/components/ui/measure";
 import { LoadingState } from "@/components/ui/spinner";
 import { measures } from "@/components/ui/units";
+import { LoadError } from "@/components/ui/load-error";
 import { formatNumber } from "@/lib/format";
 import { useRecipeCutLogs } from "../api/get-recipe-cut-logs";
 import { OutcomeBadge } from "./outcome-badge";
@@ -14,9 +15,7 @@ export function RecipeCutLogs({ shopId, recipeId, system }: { shopId: string; re
   if (logs.isPending) return <LoadingState label="Loading the cut log…" />;
   if (logs.isError)
     return (
-      <p role="alert" className="text-sm text-limit">
-        Cannot load the cut log: {logs.error.message}
-      </p>
+      <LoadError onRetry={() => void logs.refetch()}>Cannot load the cut log: {logs.error.message}</LoadError>
     );
   if (logs.data.items.length === 0) {
     return <p className="text-sm text-muted">No cuts logged yet. After a test cut, log how it went: it is what proves the recipe on its machine.</p>;

@@ -18,6 +18,7 @@ import { Card } from "@/components/ui/card";
 import { EmptyState } from "@/components/ui/empty-state";
 import { Field, inputClass } from "@/components/ui/field";
 import { LoadingState } from "@/components/ui/spinner";
+import { LoadError } from "@/components/ui/load-error";
 import { cn } from "@/lib/cn";
 import { useAssemblies } from "../api/get-assemblies";
 import { useCutter, useCutters } from "../api/get-cutters";
@@ -159,12 +160,9 @@ export function Planner({ shopId, role, system, initial, evidence }: PlannerProp
     const error = machines.error ?? materials.error;
     return (
       <Card>
-        <div role="alert" className="flex flex-col items-start gap-3 p-5 text-sm">
-          <p className="text-limit">Cannot load the shop's library: {error?.message}</p>
-          <Button variant="secondary" size="sm" onClick={() => void Promise.all([machines.refetch(), materials.refetch()])}>
-            Try again
-          </Button>
-        </div>
+        <LoadError className="p-5" onRetry={() => void Promise.all([machines.refetch(), materials.refetch()])}>
+          Cannot load the shop's library: {error?.message}
+        </LoadError>
       </Card>
     );
   }

@@ -7,6 +7,7 @@ import { TextField } from "@/components/ui/field";
 import { Form, FormError } from "@/components/ui/form";
 import { SelectField } from "@/components/ui/select";
 import { LoadingState } from "@/components/ui/spinner";
+import { LoadError } from "@/components/ui/load-error";
 import { useCopyRecipe } from "../api/copy-recipe";
 
 const schema = z.object({
@@ -52,9 +53,7 @@ export function CopyDialog({
       {targetsError || targets === undefined || options.length === 0 ? (
         <div className="flex flex-col gap-4 text-sm">
           {targetsError ? (
-            <p role="alert" className="text-limit">
-              Cannot load the cutter assemblies to copy onto: {targetsError}
-            </p>
+            <LoadError>Cannot load the cutter assemblies to copy onto: {targetsError}</LoadError>
           ) : targets === undefined ? (
             <LoadingState label="Loading the cutter assemblies…" />
           ) : (

@@ -9,6 +9,7 @@ import { MeasureValue } from "@/components/ui/measure";
 import { LoadingState } from "@/components/ui/spinner";
 import { TextareaField } from "@/components/ui/textarea";
 import { measures } from "@/components/ui/units";
+import { LoadError } from "@/components/ui/load-error";
 import { useRestoreRevision } from "../api/restore-revision";
 import { useRevisions } from "../api/get-revisions";
 import { useTransitions } from "../api/get-transitions";
@@ -25,9 +26,7 @@ export function RevisionHistory({ shopId, recipe, system, canRestore }: { shopId
   if (revisions.isPending) return <LoadingState label="Loading the revisions…" />;
   if (revisions.isError)
     return (
-      <p role="alert" className="text-sm text-limit">
-        Cannot load the revisions: {revisions.error.message}
-      </p>
+      <LoadError onRetry={() => void revisions.refetch()}>Cannot load the revisions: {revisions.error.message}</LoadError>
     );
   return (
     <>
@@ -117,9 +116,7 @@ export function TransitionHistory({ shopId, recipeId }: { shopId: string; recipe
   if (transitions.isPending) return <LoadingState label="Loading the status history…" />;
   if (transitions.isError)
     return (
-      <p role="alert" className="text-sm text-limit">
-        Cannot load the status history: {transitions.error.message}
-      </p>
+      <LoadError onRetry={() => void transitions.refetch()}>Cannot load the status history: {transitions.error.message}</LoadError>
     );
   if (transitions.data.items.length === 0) return <p className="text-sm text-muted">No status changes yet: the recipe is where it started.</p>;
   return (

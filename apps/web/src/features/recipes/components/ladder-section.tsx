@@ -14,6 +14,7 @@ import { SelectField } from "@/components/ui/select";
 import { LoadingState } from "@/components/ui/spinner";
 import { TextareaField } from "@/components/ui/textarea";
 import { measures } from "@/components/ui/units";
+import { LoadError } from "@/components/ui/load-error";
 import { useLadder } from "../api/get-ladder";
 import { useChooseRung, useCreateLadder, useScoreRung } from "../api/ladder-actions";
 
@@ -60,9 +61,7 @@ export function LadderSection({
   if (ladder.isPending) return <LoadingState label="Loading the test-cut ladder…" />;
   if (ladder.isError)
     return (
-      <p role="alert" className="text-sm text-limit">
-        Cannot load the ladder: {ladder.error.message}
-      </p>
+      <LoadError onRetry={() => void ladder.refetch()}>Cannot load the ladder: {ladder.error.message}</LoadError>
     );
 
   const current = ladder.data;

@@ -12,6 +12,7 @@ import { Card } from "@/components/ui/card";
 import { ConfirmDialog } from "@/components/ui/confirm-dialog";
 import { Notice, PageHeader } from "@/components/ui/page-header";
 import { LoadingState, Spinner } from "@/components/ui/spinner";
+import { LoadError } from "@/components/ui/load-error";
 import { cn } from "@/lib/cn";
 import { useDeleteRecipe } from "../api/delete-recipe";
 import { useRecommendation } from "../api/get-recommendation";
@@ -260,9 +261,7 @@ export function RecipeDetail({
             {server.isPending ? (
               <LoadingState label="Computing the limits…" />
             ) : server.isError ? (
-              <p role="alert" className="text-sm text-limit">
-                Cannot compute the limits: {server.error.message}
-              </p>
+              <LoadError onRetry={() => void server.refetch()}>Cannot compute the limits: {server.error.message}</LoadError>
             ) : (
               <>
                 <HeldBack rec={server.data.recommendation} where={recipe.params} system={system} />

@@ -3,12 +3,12 @@ import { RecommendInputError } from "@ringdown/machining";
 import { useEffect, useId, useMemo, useState } from "react";
 import { Link } from "react-router-dom";
 import { SafetyBand } from "@/components/recommendation/safety-band";
-import { Button } from "@/components/ui/button";
 import { Card, CardBody, CardHeader } from "@/components/ui/card";
 import { Field, Input } from "@/components/ui/field";
 import { Select } from "@/components/ui/select";
 import { LoadingState } from "@/components/ui/spinner";
 import { formatMeasure, fromDisplay, measures, toInputText, unitOf } from "@/components/ui/units";
+import { LoadError } from "@/components/ui/load-error";
 import { toSearch } from "@/lib/active-shop";
 import { formatQuantity } from "@/lib/format";
 import { useCutterOf, useMachineAssemblies, useMachineCutLogs, useMaterialChoices } from "../api/library-choices";
@@ -109,21 +109,14 @@ export function StabilitySection({ shopId, machine, system }: { shopId: string; 
         {loading ? (
           <LoadingState label="Loading the machine's assemblies and the materials…" />
         ) : assemblies.isError || materials.isError ? (
-          <div role="alert" className="flex flex-col items-start gap-3 text-sm text-limit">
-            <p>
-              Cannot load the {assemblies.isError ? "machine's cutter assemblies" : "materials"}: {(assemblies.error ?? materials.error)?.message}
-            </p>
-            <Button
-              variant="secondary"
-              size="sm"
-              onClick={() => {
-                if (assemblies.isError) void assemblies.refetch();
-                if (materials.isError) void materials.refetch();
-              }}
-            >
-              Try again
-            </Button>
-          </div>
+          <LoadError
+            onRetry={() => {
+              if (assemblies.isError) void assemblies.refetch();
+              if (materials.isError) void materials.refetch();
+            }}
+          >
+            Cannot load the {assemblies.isError ? "machine's cutter assemblies" : "materials"}: {(assemblies.error ?? materials.error)?.message}
+          </LoadError>
         ) : noAssemblies ? (
           <p className="text-sm text-muted">Add a cutter assembly to this machine (on its Figures and assemblies tab) to draw its stability lobes.</p>
         ) : (
